@@ -27,24 +27,4 @@ public sealed class ReagentCatalog : IReagentLookup
     }
 
     public PreparedReagent? Find(string reagentId) => _byId.GetValueOrDefault(reagentId);
-
-    /// <summary>A lookup that sees <paramref name="inline"/> first, then this catalog; nothing is added here.</summary>
-    public IReagentLookup With(IReadOnlyList<PreparedReagent> inline) =>
-        inline.Count == 0 ? this : new LayeredLookup(inline, this);
-
-    private sealed class LayeredLookup(IReadOnlyList<PreparedReagent> inline, IReagentLookup fallback) : IReagentLookup
-    {
-        public PreparedReagent? Find(string reagentId)
-        {
-            foreach (var r in inline)
-            {
-                if (string.Equals(r.Id, reagentId, StringComparison.OrdinalIgnoreCase))
-                {
-                    return r;
-                }
-            }
-
-            return fallback.Find(reagentId);
-        }
-    }
 }
