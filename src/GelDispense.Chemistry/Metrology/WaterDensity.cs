@@ -46,7 +46,7 @@ public static class WaterDensity
     /// Kell, J. Chem. Eng. Data 20 (1975) 97, the IPTS-68 fit:
     /// ρ = (999.83952 + 16.945176 t − 7.9870401e-3 t² − 46.170461e-6 t³ + 105.56302e-9 t⁴
     /// − 280.54253e-12 t⁵) / (1 + 16.879850e-3 t). The denominator 16.897850e-3 printed in one
-    /// transcription is a typo (it gives 997.94 kg/m³ at 20 °C). The IPTS-68 vs ITS-90 offset is
+    /// reprint is a typo (it gives 997.94 kg/m³ at 20 °C). The IPTS-68 vs ITS-90 offset is
     /// not applied: t68 − t90 is a few mK near room temperature (from memory), about 10⁻³ kg/m³.
     /// </summary>
     /// <param name="temperatureC">Water temperature, °C, 0–100.</param>
