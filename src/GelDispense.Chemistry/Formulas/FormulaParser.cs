@@ -52,7 +52,12 @@ internal sealed class FormulaParser
             }
 
             _pos++;
-            var coefficient = TryReadNumber() ?? 1.0;
+            var coefficient = TryReadNumber(isCoefficient: true) ?? 1.0;
+            if (coefficient <= 0)
+            {
+                throw Error("a hydrate coefficient must be positive", _pos - 1);
+            }
+
             var part = ParseSequence(depth: 0);
             if (part.Count == 0)
             {
@@ -140,7 +145,11 @@ internal sealed class FormulaParser
         return count;
     }
 
-    private double? TryReadNumber()
+    /// <summary>
+    /// After a hydrate separator a '.' followed by a digit is always a decimal point (CaSO4·0.5H2O); after an atom
+    /// it is one only when no formula part follows (CH3SiO1.5 but CuSO4.5H2O).
+    /// </summary>
+    private double? TryReadNumber(bool isCoefficient = false)
     {
         var start = _pos;
         while (_pos < _text.Length && char.IsAsciiDigit(_text[_pos]))
@@ -153,7 +162,8 @@ internal sealed class FormulaParser
             return null;
         }
 
-        if (_pos < _text.Length && _text[_pos] == '.' && !IsHydrateSeparator())
+        if (_pos < _text.Length && _text[_pos] == '.'
+            && (isCoefficient ? _pos + 1 < _text.Length && char.IsAsciiDigit(_text[_pos + 1]) : !IsHydrateSeparator()))
         {
             _pos++;
             var fractionStart = _pos;
