@@ -23,6 +23,9 @@ public sealed record Reagent
 
     public double AssayPct { get; init; } = 100;
 
+    /// <summary>A solid is weighed, never pipetted.</summary>
+    public bool IsSolid { get; init; }
+
     public PrecursorData? Precursor { get; init; }
 
     public IReadOnlyList<SolutionConstituent> Constituents { get; init; } = [];
