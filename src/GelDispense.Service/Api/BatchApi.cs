@@ -1,0 +1,107 @@
+using System.Text;
+using GelDispense.Contracts.V1;
+using GelDispense.Service.Batches;
+using GelDispense.Service.Errors;
+using Google.Api;
+using Google.Protobuf;
+using Grpc.Core;
+
+namespace GelDispense.Service.Api;
+
+/// <summary>Batches at stations: create, read, additions, as-made, complete/abort, the LIMS list, CSV export and the live watch stream.</summary>
+public sealed class BatchApi(BatchLedger ledger, AdditionRecorder additions, BatchEventSignal signal, RequestLog log) : BatchService.BatchServiceBase
+{
+    /// <summary>How often a watcher re-reads the event log for events written by other replicas.</summary>
+    public static readonly TimeSpan WatchPollInterval = TimeSpan.FromSeconds(1);
+
+    public override Task<Batch> CreateBatch(CreateBatchRequest request, ServerCallContext context)
+    {
+        log.Station(request.StationId);
+        // Starting a batch needs its dispensing plan, which the chemistry library's planner computes; until that
+        // planner is wired in, refuse openly rather than store a plan nobody computed.
+        throw new ApiException(StatusCode.Unimplemented,
+            "Starting a batch needs the dispensing planner, which this build does not have yet.", []);
+    }
+
+    public override Task<Batch> GetBatch(GetBatchRequest request, ServerCallContext context)
+    {
+        log.Batch(request.Id);
+        return ledger.GetAsync(request.Id, context.CancellationToken);
+    }
+
+    public override Task<RecordAdditionResponse> RecordAddition(RecordAdditionRequest request, ServerCallContext context)
+    {
+        log.Batch(request.BatchId);
+        return additions.RecordAsync(request, context.CancellationToken);
+    }
+
+    public override Task<AsMade> GetAsMade(GetAsMadeRequest request, ServerCallContext context)
+    {
+        log.Batch(request.BatchId);
+        return additions.AsMadeAsync(request.BatchId, context.CancellationToken);
+    }
+
+    public override Task<Batch> CompleteBatch(CompleteBatchRequest request, ServerCallContext context)
+    {
+        log.Batch(request.Id);
+        return ledger.CloseAsync(request.Id, BatchStatus.Completed, "", context.CancellationToken);
+    }
+
+    public override Task<Batch> AbortBatch(AbortBatchRequest request, ServerCallContext context)
+    {
+        log.Batch(request.Id);
+        return ledger.CloseAsync(request.Id, BatchStatus.Aborted, request.Reason, context.CancellationToken);
+    }
+
+    public override Task<ListBatchesResponse> ListBatches(ListBatchesRequest request, ServerCallContext context) =>
+        ledger.ListAsync(request, context.CancellationToken);
+
+    public override async Task<HttpBody> ExportAdditionsCsv(ExportAdditionsCsvRequest request, ServerCallContext context)
+    {
+        var csv = new StringBuilder(AdditionsCsv.Header).Append("\r\n");
+        if (request.BatchId.Length > 0)
+        {
+            log.Batch(request.BatchId);
+            AdditionsCsv.AppendRows(csv, await ledger.GetAsync(request.BatchId, context.CancellationToken));
+        }
+        else
+        {
+            var page = new ListBatchesRequest { UpdatedAfter = request.UpdatedAfter, StationId = request.StationId, PageSize = BatchLedger.MaxPageSize };
+            ListBatchesResponse response;
+            do
+            {
+                response = await ledger.ListAsync(page, context.CancellationToken);
+                foreach (var batch in response.Batches)
+                {
+                    AdditionsCsv.AppendRows(csv, batch);
+                }
+
+                page.PageToken = response.NextPageToken;
+            }
+            while (response.HasMore);
+        }
+
+        return new HttpBody { ContentType = "text/csv; charset=utf-8", Data = ByteString.CopyFromUtf8(csv.ToString()) };
+    }
+
+    public override async Task WatchBatch(WatchBatchRequest request, IServerStreamWriter<BatchEvent> responseStream, ServerCallContext context)
+    {
+        log.Batch(request.BatchId);
+        var batchId = (await ledger.FindAsync(request.BatchId, "batchId", context.CancellationToken)).Id;
+        var after = request.AfterSequence;
+        while (!context.CancellationToken.IsCancellationRequested)
+        {
+            foreach (var batchEvent in await ledger.EventsAsync(batchId, after, context.CancellationToken))
+            {
+                await responseStream.WriteAsync(batchEvent, context.CancellationToken);
+                after = batchEvent.Sequence;
+                if (batchEvent.Type is BatchEventType.Completed or BatchEventType.Aborted)
+                {
+                    return;
+                }
+            }
+
+            await signal.WaitAsync(batchId, WatchPollInterval, context.CancellationToken);
+        }
+    }
+}

@@ -1,0 +1,17 @@
+using GelDispense.Chemistry.Composition;
+using GelDispense.Contracts.V1;
+using GelDispense.Service.Mapping;
+using Grpc.Core;
+
+namespace GelDispense.Service.Api;
+
+/// <summary>POST /v1/compositions:evaluate — the chemistry library's composition evaluator behind the contract.</summary>
+public sealed class CompositionApi(ReagentDirectory reagents) : CompositionService.CompositionServiceBase
+{
+    public override async Task<Contracts.V1.Composition> EvaluateComposition(EvaluateCompositionRequest request, ServerCallContext context)
+    {
+        var recipe = RecipeMapping.ToChemistry(request.Recipe);
+        var catalog = await reagents.LookupAsync(context.CancellationToken);
+        return CompositionMapping.ToContract(CompositionEvaluator.Evaluate(recipe, catalog));
+    }
+}

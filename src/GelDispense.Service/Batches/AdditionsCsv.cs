@@ -1,0 +1,41 @@
+using System.Globalization;
+using System.Text;
+using GelDispense.Contracts.V1;
+
+namespace GelDispense.Service.Batches;
+
+/// <summary>
+/// The CSV export: one row per addition, RFC 4180 quoting, units in the column names, invariant culture
+/// (decimal point, ISO 8601 UTC times) so any LIMS or spreadsheet reads it the same way.
+/// </summary>
+public static class AdditionsCsv
+{
+    public const string Header =
+        "batch_id,station_id,batch_status,recipe_name,recipe_revision,addition_id,step_index,reagent_id,lot_id," +
+        "reading_g,true_mass_g,target_mass_g,tolerance_g,within_window,stable,source,recorded_at_utc";
+
+    public static void AppendRows(StringBuilder csv, Batch batch)
+    {
+        var steps = batch.Steps.ToDictionary(s => s.Index);
+        foreach (var a in batch.Additions)
+        {
+            var step = steps.GetValueOrDefault(a.StepIndex);
+            string[] fields =
+            [
+                batch.Id, batch.StationId, batch.Status.ToString(), batch.RecipeName, Number(batch.RecipeRevision), a.AdditionId,
+                Number(a.StepIndex), step?.ReagentId ?? "", a.LotId, Number(a.ReadingG), Number(a.TrueMassG),
+                step is null ? "" : Number(step.TargetMassG), step is null ? "" : Number(step.ToleranceG),
+                a.WithinWindow ? "true" : "false", a.Stable ? "true" : "false", a.Source,
+                a.RecordedAt.ToDateTimeOffset().UtcDateTime.ToString("yyyy-MM-dd'T'HH:mm:ss.ffffff'Z'", CultureInfo.InvariantCulture),
+            ];
+            csv.AppendJoin(',', fields.Select(Quote)).Append("\r\n");
+        }
+    }
+
+    private static string Number(double value) => value.ToString("R", CultureInfo.InvariantCulture);
+
+    private static string Number(int value) => value.ToString(CultureInfo.InvariantCulture);
+
+    private static string Quote(string field) =>
+        field.IndexOfAny([',', '"', '\r', '\n']) < 0 ? field : $"\"{field.Replace("\"", "\"\"", StringComparison.Ordinal)}\"";
+}

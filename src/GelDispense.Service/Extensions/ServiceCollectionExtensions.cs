@@ -1,0 +1,37 @@
+using GelDispense.Service.Api;
+using GelDispense.Service.Batches;
+using GelDispense.Service.Errors;
+using GelDispense.Service.Storage;
+
+namespace GelDispense.Service.Extensions;
+
+/// <summary>Everything the host registers: gRPC with JSON transcoding, OpenAPI, health, storage and the batch ledger.</summary>
+public static class ServiceCollectionExtensions
+{
+    public static IServiceCollection AddGelDispenseServices(this IServiceCollection services, IConfiguration configuration)
+    {
+        var limits = configuration.GetSection(RequestLimits.Section).Get<RequestLimits>() ?? new RequestLimits();
+        services.AddSingleton(limits);
+        services.AddSingleton(TimeProvider.System);
+        services.AddSingleton(Random.Shared);
+
+        services.AddGrpc(options =>
+        {
+            options.Interceptors.Add<ErrorMappingInterceptor>();
+            options.MaxReceiveMessageSize = limits.MaxRequestBodyBytes;
+        }).AddJsonTranscoding(options =>
+            // Error details are packed as Any; the transcoder can only write the types it is told about.
+            options.TypeRegistry = Google.Protobuf.Reflection.TypeRegistry.FromMessages(Google.Rpc.BadRequest.Descriptor));
+        services.AddGrpcReflection();
+        services.AddGrpcHealthChecks().AddCheck<StorageHealthCheck>("storage");
+        services.AddGelDispenseSwagger();
+
+        services.AddGelDispenseStorage(configuration);
+        services.AddSingleton<ReagentDirectory>();
+        services.AddSingleton<BatchEventSignal>();
+        services.AddSingleton<BatchLedger>();
+        services.AddSingleton<AdditionRecorder>();
+        services.AddScoped<RequestLog>();
+        return services;
+    }
+}

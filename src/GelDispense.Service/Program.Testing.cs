@@ -1,0 +1,2 @@
+// Makes the implicit Program class visible to WebApplicationFactory in the service tests.
+public partial class Program;

@@ -1,0 +1,21 @@
+namespace GelDispense.Service.Storage;
+
+/// <summary>One stored addition. <see cref="Response"/> is the RecordAdditionResponse JSON a replay returns unchanged.</summary>
+public sealed class AdditionRow
+{
+    public string BatchId { get; init; } = "";
+    public string AdditionId { get; init; } = "";
+    /// <summary>0-based position among the batch's additions, in the order the service accepted them.</summary>
+    public long Ordinal { get; init; }
+    public long StepIndex { get; init; }
+    public double ReadingG { get; init; }
+    public bool Stable { get; init; }
+    public string Source { get; init; } = "";
+    public string LotId { get; init; } = "";
+    public double TrueMassG { get; init; }
+    public bool WithinWindow { get; init; }
+    public string RecordedAt { get; init; } = "";
+    /// <summary>Hash of what the station sent; a replay with another hash is a conflict.</summary>
+    public string ContentHash { get; init; } = "";
+    public string Response { get; init; } = "";
+}

@@ -1,0 +1,166 @@
+using System.Data.Common;
+using Dapper;
+
+namespace GelDispense.Service.Storage;
+
+/// <summary>
+/// Batches, recipe revisions, additions and the event log. Every change to a batch is a version-checked
+/// update (optimistic concurrency): a writer that read an older version gets <see cref="WriteOutcome.Conflict"/>
+/// and must read again. Additions and events are only ever inserted.
+/// </summary>
+public sealed class BatchStore(IDatabase database)
+{
+    private const string SelectBatch = """
+        SELECT b.id, b.station_id, b.status, b.recipe_revision_id, r.name AS recipe_name, r.revision AS recipe_revision,
+               r.body AS recipe_body, b.setup, b.plan, b.abort_reason, b.created_at, b.updated_at, b.version, b.last_event_seq
+        FROM batches b JOIN recipe_revisions r ON r.id = b.recipe_revision_id
+        """;
+
+    private const string SelectAddition = """
+        SELECT batch_id, addition_id, ordinal, step_index, reading_g, stable, source, lot_id, true_mass_g,
+               within_window, recorded_at, content_hash, response
+        FROM additions
+        """;
+
+    static BatchStore() => DefaultTypeMap.MatchNamesWithUnderscores = true;
+
+    /// <summary>Stores a batch; false when a concurrent writer took the same recipe revision number (retry).</summary>
+    public async Task<bool> TryCreateAsync(NewBatch batch, CancellationToken cancellationToken)
+    {
+        await using var connection = await database.OpenAsync(cancellationToken);
+        await using var transaction = await connection.BeginTransactionAsync(cancellationToken);
+        try
+        {
+            var revisionId = await RecipeRevisionAsync(connection, transaction, batch);
+            var seq = await EventLog.NextSequenceAsync(connection, transaction);
+            await connection.ExecuteAsync("""
+                INSERT INTO batches (id, station_id, status, recipe_revision_id, setup, plan, abort_reason, created_at, updated_at, version, last_event_seq)
+                VALUES (@Id, @StationId, @Status, @revisionId, @Setup, @Plan, '', @at, @at, 1, @seq)
+                """, new { batch.Id, batch.StationId, batch.Status, revisionId, batch.Setup, batch.Plan, at = TimeText.Format(batch.At), seq }, transaction);
+            await EventLog.AppendAsync(connection, transaction, seq, batch.Id, batch.EventType, batch.EventBody, batch.At);
+            await transaction.CommitAsync(cancellationToken);
+            return true;
+        }
+        catch (DbException e) when (database.IsConflict(e))
+        {
+            return false;
+        }
+    }
+
+    public async Task<BatchRow?> FindAsync(string id, CancellationToken cancellationToken)
+    {
+        await using var connection = await database.OpenAsync(cancellationToken);
+        return await connection.QuerySingleOrDefaultAsync<BatchRow>($"{SelectBatch} WHERE b.id = @id", new { id });
+    }
+
+    public async Task<IReadOnlyList<AdditionRow>> AdditionsAsync(IReadOnlyCollection<string> batchIds, CancellationToken cancellationToken)
+    {
+        if (batchIds.Count == 0)
+        {
+            return [];
+        }
+
+        await using var connection = await database.OpenAsync(cancellationToken);
+        var rows = await connection.QueryAsync<AdditionRow>(
+            $"{SelectAddition} WHERE batch_id IN @batchIds ORDER BY batch_id, ordinal", new { batchIds });
+        return [.. rows];
+    }
+
+    /// <summary>Appends an addition if the batch is still at <paramref name="expectedVersion"/>; <paramref name="plan"/> replaces the stored plan when given.</summary>
+    public Task<WriteOutcome> TryAppendAdditionAsync(
+        AdditionRow addition, long expectedVersion, string? plan, string eventBody, DateTimeOffset at, CancellationToken cancellationToken) =>
+        WriteVersionedAsync(addition.BatchId, expectedVersion, at, "ADDITION_RECORDED", eventBody, cancellationToken, async (connection, transaction) =>
+        {
+            await connection.ExecuteAsync("""
+                INSERT INTO additions (batch_id, addition_id, ordinal, step_index, reading_g, stable, source, lot_id, true_mass_g,
+                                       within_window, recorded_at, content_hash, response)
+                VALUES (@BatchId, @AdditionId, @Ordinal, @StepIndex, @ReadingG, @Stable, @Source, @LotId, @TrueMassG,
+                        @WithinWindow, @RecordedAt, @ContentHash, @Response)
+                """, addition, transaction);
+            if (plan is not null)
+            {
+                await connection.ExecuteAsync("UPDATE batches SET plan = @plan WHERE id = @id", new { plan, id = addition.BatchId }, transaction);
+            }
+        });
+
+    /// <summary>Moves the batch to another status if it is still at <paramref name="expectedVersion"/>.</summary>
+    public Task<WriteOutcome> TrySetStatusAsync(
+        string batchId, long expectedVersion, string status, string abortReason, string eventType, string eventBody, DateTimeOffset at,
+        CancellationToken cancellationToken) =>
+        WriteVersionedAsync(batchId, expectedVersion, at, eventType, eventBody, cancellationToken, (connection, transaction) =>
+            connection.ExecuteAsync(
+                "UPDATE batches SET status = @status, abort_reason = @abortReason WHERE id = @batchId",
+                new { status, abortReason, batchId }, transaction));
+
+    /// <summary>Batches whose latest event is after <paramref name="afterSeq"/>, in event order (the LIMS keyset).</summary>
+    public async Task<IReadOnlyList<BatchRow>> ListChangedAsync(
+        long afterSeq, DateTimeOffset? updatedAfter, string? stationId, int limit, CancellationToken cancellationToken)
+    {
+        await using var connection = await database.OpenAsync(cancellationToken);
+        var rows = await connection.QueryAsync<BatchRow>($"""
+            {SelectBatch}
+            WHERE b.last_event_seq > @afterSeq
+              AND (@updatedAfter IS NULL OR b.updated_at > @updatedAfter)
+              AND (@stationId IS NULL OR b.station_id = @stationId)
+            ORDER BY b.last_event_seq
+            LIMIT @limit
+            """, new { afterSeq, updatedAfter = updatedAfter is { } u ? TimeText.Format(u) : null, stationId, limit });
+        return [.. rows];
+    }
+
+    public async Task<IReadOnlyList<EventRow>> EventsAsync(string batchId, long afterSeq, CancellationToken cancellationToken)
+    {
+        await using var connection = await database.OpenAsync(cancellationToken);
+        var rows = await connection.QueryAsync<EventRow>(
+            "SELECT seq, batch_id, type, body, occurred_at FROM batch_events WHERE batch_id = @batchId AND seq > @afterSeq ORDER BY seq",
+            new { batchId, afterSeq });
+        return [.. rows];
+    }
+
+    private async Task<WriteOutcome> WriteVersionedAsync(
+        string batchId, long expectedVersion, DateTimeOffset at, string eventType, string eventBody, CancellationToken cancellationToken,
+        Func<DbConnection, DbTransaction, Task> write)
+    {
+        await using var connection = await database.OpenAsync(cancellationToken);
+        await using var transaction = await connection.BeginTransactionAsync(cancellationToken);
+        try
+        {
+            // Taking the batch row first serialises writers of one batch; the loser sees 0 rows and re-reads.
+            var claimed = await connection.ExecuteAsync(
+                "UPDATE batches SET version = version + 1, updated_at = @at WHERE id = @batchId AND version = @expectedVersion",
+                new { at = TimeText.Format(at), batchId, expectedVersion }, transaction);
+            if (claimed == 0)
+            {
+                return WriteOutcome.Conflict;
+            }
+
+            await write(connection, transaction);
+            var seq = await EventLog.NextSequenceAsync(connection, transaction);
+            await connection.ExecuteAsync("UPDATE batches SET last_event_seq = @seq WHERE id = @batchId", new { seq, batchId }, transaction);
+            await EventLog.AppendAsync(connection, transaction, seq, batchId, eventType, eventBody, at);
+            await transaction.CommitAsync(cancellationToken);
+            return new WriteOutcome(true, seq);
+        }
+        catch (DbException e) when (database.IsConflict(e))
+        {
+            return WriteOutcome.Conflict;
+        }
+    }
+
+    private static async Task<long> RecipeRevisionAsync(DbConnection connection, DbTransaction transaction, NewBatch batch)
+    {
+        var latest = await connection.QuerySingleOrDefaultAsync<(long Id, long Revision, string ContentHash)?>(
+            "SELECT id, revision, content_hash FROM recipe_revisions WHERE name = @RecipeName ORDER BY revision DESC LIMIT 1",
+            new { batch.RecipeName }, transaction);
+        if (latest is { } same && same.ContentHash == batch.RecipeHash)
+        {
+            return same.Id;
+        }
+
+        return await connection.ExecuteScalarAsync<long>("""
+            INSERT INTO recipe_revisions (name, revision, content_hash, body, created_at)
+            VALUES (@RecipeName, @revision, @RecipeHash, @RecipeBody, @at) RETURNING id
+            """, new { batch.RecipeName, revision = (latest?.Revision ?? 0) + 1, batch.RecipeHash, batch.RecipeBody, at = TimeText.Format(batch.At) },
+            transaction);
+    }
+}

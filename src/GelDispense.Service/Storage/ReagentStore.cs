@@ -1,0 +1,53 @@
+using System.Data.Common;
+using Dapper;
+
+namespace GelDispense.Service.Storage;
+
+/// <summary>Custom reagents and reagent lots, each stored as protobuf JSON of its contract message.</summary>
+public sealed class ReagentStore(IDatabase database)
+{
+    /// <summary>Inserts a reagent; false when the id is taken.</summary>
+    public Task<bool> TryAddReagentAsync(string id, string body, DateTimeOffset at, CancellationToken cancellationToken) =>
+        TryInsertAsync(
+            "INSERT INTO reagents (id, body, created_at) VALUES (@id, @body, @at)",
+            new { id, body, at = TimeText.Format(at) }, cancellationToken);
+
+    public async Task<IReadOnlyList<string>> ReagentBodiesAsync(CancellationToken cancellationToken)
+    {
+        await using var connection = await database.OpenAsync(cancellationToken);
+        return [.. await connection.QueryAsync<string>("SELECT body FROM reagents ORDER BY id")];
+    }
+
+    public async Task<string?> ReagentBodyAsync(string id, CancellationToken cancellationToken)
+    {
+        await using var connection = await database.OpenAsync(cancellationToken);
+        return await connection.QuerySingleOrDefaultAsync<string>("SELECT body FROM reagents WHERE id = @id", new { id });
+    }
+
+    /// <summary>Inserts a lot; false when the reagent already has a lot with this id.</summary>
+    public Task<bool> TryAddLotAsync(string reagentId, string lotId, string expiresOn, string body, DateTimeOffset at, CancellationToken cancellationToken) =>
+        TryInsertAsync(
+            "INSERT INTO reagent_lots (reagent_id, lot_id, expires_on, body, created_at) VALUES (@reagentId, @lotId, @expiresOn, @body, @at)",
+            new { reagentId, lotId, expiresOn, body, at = TimeText.Format(at) }, cancellationToken);
+
+    public async Task<IReadOnlyList<string>> LotBodiesAsync(string reagentId, CancellationToken cancellationToken)
+    {
+        await using var connection = await database.OpenAsync(cancellationToken);
+        return [.. await connection.QueryAsync<string>(
+            "SELECT body FROM reagent_lots WHERE reagent_id = @reagentId ORDER BY expires_on, lot_id", new { reagentId })];
+    }
+
+    private async Task<bool> TryInsertAsync(string sql, object parameters, CancellationToken cancellationToken)
+    {
+        await using var connection = await database.OpenAsync(cancellationToken);
+        try
+        {
+            await connection.ExecuteAsync(sql, parameters);
+            return true;
+        }
+        catch (DbException e) when (database.IsConflict(e))
+        {
+            return false;
+        }
+    }
+}

@@ -1,0 +1,47 @@
+using System.Data.Common;
+using Microsoft.Data.Sqlite;
+
+namespace GelDispense.Service.Storage;
+
+/// <summary>
+/// The embedded default. WAL lets readers run beside the single writer; the busy timeout makes writers
+/// queue instead of failing, and Microsoft.Data.Sqlite begins transactions IMMEDIATE, so a writer holds
+/// the lock from its first statement.
+/// </summary>
+public sealed class SqliteDatabase : Database
+{
+    private readonly string _connectionString;
+
+    public SqliteDatabase(string connectionString, TimeProvider time)
+        : base(time)
+    {
+        var builder = new SqliteConnectionStringBuilder(connectionString) { ForeignKeys = true, DefaultTimeout = 30 };
+        if (builder.Mode != SqliteOpenMode.Memory && !string.IsNullOrEmpty(builder.DataSource) && builder.DataSource != ":memory:")
+        {
+            var directory = Path.GetDirectoryName(Path.GetFullPath(builder.DataSource));
+            if (!string.IsNullOrEmpty(directory))
+            {
+                Directory.CreateDirectory(directory);
+            }
+        }
+
+        _connectionString = builder.ToString();
+    }
+
+    public override string Engine => "Sqlite";
+
+    public override string MigrationLockSql => "SELECT 1";
+
+    public override async Task<DbConnection> OpenRawAsync(CancellationToken cancellationToken)
+    {
+        var connection = new SqliteConnection(_connectionString);
+        await connection.OpenAsync(cancellationToken);
+        await using var pragma = connection.CreateCommand();
+        pragma.CommandText = "PRAGMA journal_mode = WAL; PRAGMA synchronous = NORMAL;";
+        await pragma.ExecuteNonQueryAsync(cancellationToken);
+        return connection;
+    }
+
+    // SQLITE_CONSTRAINT (19): a unique key taken by a concurrent writer between our read and our write.
+    public override bool IsConflict(DbException exception) => exception is SqliteException { SqliteErrorCode: 19 };
+}
