@@ -4,11 +4,14 @@ namespace GelDispense.Agent.Formats;
 /// Cuts a byte stream into lines on CR, LF or CR LF, in any mix, keeping a partial line until its end
 /// arrives. Memory stays bounded: past <c>maxLineLength</c> characters the rest of a line is only counted.
 /// Not thread-safe; one splitter per connection, and a new one after a reconnect so that half a line from
-/// before a hang-up can never be glued to half a line after it.
+/// before a hang-up can never be glued to half a line after it. A splitter made with
+/// <c>startsMidLine: true</c> drops everything up to the first terminator: right after a port opens we cannot
+/// know whether the balance was halfway through a line, and a tail such as "00" would parse as a mass.
 /// </summary>
-public sealed class LineSplitter(int maxLineLength)
+public sealed class LineSplitter(int maxLineLength, bool startsMidLine = false)
 {
     private readonly char[] _buffer = new char[maxLineLength];
+    private bool _resyncing = startsMidLine;
     private int _length;
     private int _nonText;
     private bool _overlong;
@@ -19,6 +22,9 @@ public sealed class LineSplitter(int maxLineLength)
 
     /// <summary>Bytes that were neither printable ASCII, tab nor a line terminator.</summary>
     public long NonTextBytesSeen { get; private set; }
+
+    /// <summary>Bytes dropped before the first terminator of a splitter that starts mid-line.</summary>
+    public long BytesDroppedAtStart { get; private set; }
 
     /// <summary>True while a line has started but its terminator has not arrived.</summary>
     public bool HasPartialLine => _length > 0 || _nonText > 0 || _overlong;
@@ -33,7 +39,11 @@ public sealed class LineSplitter(int maxLineLength)
                 // The LF of a CR LF pair ends nothing: the CR already ended the line.
                 var secondHalfOfPair = b == (byte)'\n' && _lastWasCr;
                 _lastWasCr = b == (byte)'\r';
-                if (!secondHalfOfPair)
+                if (_resyncing)
+                {
+                    _resyncing = false;
+                }
+                else if (!secondHalfOfPair)
                 {
                     EndLine(onLine);
                 }
@@ -42,7 +52,11 @@ public sealed class LineSplitter(int maxLineLength)
             }
 
             _lastWasCr = false;
-            if (b is < 0x20 and not (byte)'\t' or >= 0x7F)
+            if (_resyncing)
+            {
+                BytesDroppedAtStart++;
+            }
+            else if (b is < 0x20 and not (byte)'\t' or >= 0x7F)
             {
                 _nonText++;
                 NonTextBytesSeen++;

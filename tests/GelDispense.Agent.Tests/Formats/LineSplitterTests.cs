@@ -89,4 +89,15 @@ public class LineSplitterTests
         Assert.Equal("1", Assert.Single(lines).Text);
         Assert.Equal(1, splitter.LinesSeen);
     }
+
+    [Fact]
+    public void A_splitter_that_starts_mid_line_drops_everything_before_the_first_terminator()
+    {
+        var splitter = new LineSplitter(64, startsMidLine: true);
+
+        var lines = Split(splitter, B("00"), B(" g\r\n= +    1.0000 g\r\n"));
+
+        Assert.Equal("= +    1.0000 g", Assert.Single(lines).Text);
+        Assert.Equal(4, splitter.BytesDroppedAtStart);
+    }
 }

@@ -1,0 +1,56 @@
+using System.Net;
+using System.Net.Sockets;
+using System.Text;
+using GelDispense.Agent.Links;
+using GelDispense.Agent.Tests.Support;
+
+namespace GelDispense.Agent.Tests.Links;
+
+/// <summary>The TCP link against a real loopback listener.</summary>
+public class TcpLinkTests
+{
+    [Fact]
+    public async Task Lines_arrive_and_a_closed_socket_is_lost_then_reconnected()
+    {
+        using var listener = new TcpListener(IPAddress.Loopback, 0);
+        listener.Start();
+        var port = ((IPEndPoint)listener.LocalEndpoint).Port;
+        await using var link = FastLinks.Tcp(port);
+        var status = new StatusLog(link);
+        link.Start();
+
+        using (var first = await listener.AcceptTcpClientAsync())
+        {
+            await first.GetStream().WriteAsync(Encoding.ASCII.GetBytes("\nmass=1.5,unit=g,steady=1\r\n"));
+            Assert.Equal("mass=1.5,unit=g,steady=1", (await LineWaiter.TakeAsync(link, 1)).Single().Line.Text);
+        }
+
+        var lost = await status.WaitForAsync(LinkStatus.Lost);
+        using var second = await listener.AcceptTcpClientAsync();
+        await second.GetStream().WriteAsync(Encoding.ASCII.GetBytes("\nmass=2.5,unit=g,steady=1\n"));
+        var again = (await LineWaiter.TakeAsync(link, 1)).Single();
+
+        Assert.Contains("closed the connection", lost.Reason);
+        Assert.Equal(2, again.ConnectionEpoch);
+    }
+
+    [Fact]
+    public async Task Nobody_listening_means_reconnecting_with_the_reason()
+    {
+        int port;
+        using (var probe = new TcpListener(IPAddress.Loopback, 0))
+        {
+            probe.Start();
+            port = ((IPEndPoint)probe.LocalEndpoint).Port;
+        }
+
+        await using var link = FastLinks.Tcp(port);
+        var status = new StatusLog(link);
+        link.Start();
+
+        var retry = await status.WaitForAsync(LinkStatus.Reconnecting);
+
+        Assert.Equal(1, retry.Attempt);
+        Assert.False(await link.SendAsync("X", CancellationToken.None));
+    }
+}
