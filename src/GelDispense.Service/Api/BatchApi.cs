@@ -1,7 +1,6 @@
 using System.Text;
 using GelDispense.Contracts.V1;
 using GelDispense.Service.Batches;
-using GelDispense.Service.Errors;
 using Google.Api;
 using Google.Protobuf;
 using Grpc.Core;
@@ -9,18 +8,18 @@ using Grpc.Core;
 namespace GelDispense.Service.Api;
 
 /// <summary>Batches at stations: create, read, additions, as-made, complete/abort, the LIMS list, CSV export and the live watch stream.</summary>
-public sealed class BatchApi(BatchLedger ledger, AdditionRecorder additions, BatchEventSignal signal, RequestLog log) : BatchService.BatchServiceBase
+public sealed class BatchApi(Planner planner, BatchLedger ledger, AdditionRecorder additions, BatchEventSignal signal, RequestLog log) : BatchService.BatchServiceBase
 {
     /// <summary>How often a watcher re-reads the event log for events written by other replicas.</summary>
     public static readonly TimeSpan WatchPollInterval = TimeSpan.FromSeconds(1);
 
-    public override Task<Batch> CreateBatch(CreateBatchRequest request, ServerCallContext context)
+    public override async Task<Batch> CreateBatch(CreateBatchRequest request, ServerCallContext context)
     {
         log.Station(request.StationId);
-        // Starting a batch needs its dispensing plan, which the chemistry library's planner computes; until that
-        // planner is wired in, refuse openly rather than store a plan nobody computed.
-        throw new ApiException(StatusCode.Unimplemented,
-            "Starting a batch needs the dispensing planner, which this build does not have yet.", []);
+        var plan = await planner.PlanAsync(request.Recipe, request.Balance, request.Pipette, request.Air, context.CancellationToken);
+        var batch = await ledger.CreateAsync(request, plan, context.CancellationToken);
+        log.Batch(batch.Id);
+        return batch;
     }
 
     public override Task<Batch> GetBatch(GetBatchRequest request, ServerCallContext context)

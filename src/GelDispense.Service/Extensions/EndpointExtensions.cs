@@ -18,6 +18,7 @@ public static class EndpointExtensions
     public static WebApplication MapGelDispenseEndpoints(this WebApplication app)
     {
         app.MapGrpcService<CompositionApi>();
+        app.MapGrpcService<PlanApi>();
         app.MapGrpcService<ReagentApi>();
         app.MapGrpcService<BatchApi>();
         app.MapGrpcReflectionService();

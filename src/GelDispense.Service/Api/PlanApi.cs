@@ -1,0 +1,11 @@
+using GelDispense.Contracts.V1;
+using Grpc.Core;
+
+namespace GelDispense.Service.Api;
+
+/// <summary>POST /v1/plans — a dispensing plan without starting a batch.</summary>
+public sealed class PlanApi(Planner planner) : PlanService.PlanServiceBase
+{
+    public override Task<DispensingPlan> CreatePlan(CreatePlanRequest request, ServerCallContext context) =>
+        planner.PlanAsync(request.Recipe, request.Balance, request.Pipette, request.Air, context.CancellationToken);
+}

@@ -1,0 +1,22 @@
+using GelDispense.Chemistry.Planning;
+using GelDispense.Service.Mapping;
+using Contract = GelDispense.Contracts.V1;
+
+namespace GelDispense.Service.Api;
+
+/// <summary>Plans a recipe on a station's devices with the chemistry library's <see cref="PlanBuilder"/>.</summary>
+public sealed class Planner(ReagentDirectory reagents)
+{
+    public async Task<Contract.DispensingPlan> PlanAsync(
+        Contract.Recipe? recipe, Contract.BalanceProfile? balance, Contract.PipetteProfile? pipette, Contract.AirConditions? air,
+        CancellationToken cancellationToken)
+    {
+        var chemistryRecipe = RecipeMapping.ToChemistry(recipe);
+        var request = new PlanRequest(
+            DeviceMapping.ToChemistry(balance, "balance"),
+            DeviceMapping.ToChemistry(pipette, "pipette"),
+            DeviceMapping.ToChemistry(air, "air"));
+        var catalog = await reagents.LookupAsync(cancellationToken);
+        return PlanMapping.ToContract(PlanBuilder.Build(chemistryRecipe, catalog, request), recipe!.Scale);
+    }
+}
