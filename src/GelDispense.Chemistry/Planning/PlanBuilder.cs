@@ -90,6 +90,7 @@ public static class PlanBuilder
                 Problem = StepAdvice.Problem(draft, i),
                 Suggestions = StepAdvice.For(draft, i, request, minimumScale),
                 Cautions = GhsStatements.Cautions([line.Reagent]),
+                Notes = device.Method == DispensingMethod.Balance && StepDevice.UspNote(request.Balance, massG) is { } note ? [note] : [],
                 BalanceVerifies = device.Method == DispensingMethod.Pipette
                     && StepDevice.OnBalance(request.Balance, massG, draft.GrossG[i]) is { Usable: true } b && b.ErrorG <= device.ErrorG,
             };

@@ -44,6 +44,9 @@ public sealed record PlanStep
 
     public IReadOnlyList<string> Cautions { get; init; } = [];
 
+    /// <summary>Information that does not make the step infeasible (for example the USP &lt;41&gt; minimum weight).</summary>
+    public IReadOnlyList<string> Notes { get; init; } = [];
+
     /// <summary>In a re-plan: the step has been added and <see cref="TargetMassG"/> is the mass recorded.</summary>
     public bool Done { get; init; }
 

@@ -1,3 +1,4 @@
+using GelDispense.Chemistry.Reagents;
 using GelDispense.Chemistry.Composition;
 using GelDispense.Chemistry.Tests.Support;
 
@@ -5,7 +6,7 @@ namespace GelDispense.Chemistry.Tests.Composition;
 
 public class CompositionEvaluatorTests
 {
-    private static readonly Reagents.ReagentCatalog Catalog = TestReagents.Catalog();
+    private static readonly ReagentCatalog Catalog = TestReagents.Catalog();
 
     /// <summary>
     /// A worked example computed by hand, every intermediate written out. Atomic weights: IUPAC 2021

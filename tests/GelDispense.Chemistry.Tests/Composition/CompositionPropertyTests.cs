@@ -1,3 +1,4 @@
+using GelDispense.Chemistry.Reagents;
 using FsCheck;
 using FsCheck.Xunit;
 using GelDispense.Chemistry.Composition;
@@ -8,7 +9,7 @@ namespace GelDispense.Chemistry.Tests.Composition;
 /// <summary>Invariants of the composition maths over random recipes (FsCheck).</summary>
 public class CompositionPropertyTests
 {
-    private static readonly Reagents.ReagentCatalog Catalog = TestReagents.Catalog();
+    private static readonly ReagentCatalog Catalog = TestReagents.Catalog();
 
     private static double Grams(PositiveInt n) => 0.01 * (1 + n.Get % 20000);
 

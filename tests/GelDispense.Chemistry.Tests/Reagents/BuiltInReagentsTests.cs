@@ -1,6 +1,6 @@
 using GelDispense.Chemistry.Reagents;
 
-// Not GelDispense.Chemistry.Tests.Reagents: that namespace would capture the qualified name Reagents.ReagentCatalog
+// Not GelDispense.Chemistry.Tests.Reagents: that namespace would capture the qualified name ReagentCatalog
 // used by the Composition and Solving tests.
 namespace GelDispense.Chemistry.Tests.ReagentsTests;
 

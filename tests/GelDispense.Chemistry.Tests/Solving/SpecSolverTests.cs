@@ -1,3 +1,4 @@
+using GelDispense.Chemistry.Reagents;
 using GelDispense.Chemistry.Composition;
 using GelDispense.Chemistry.Errors;
 using GelDispense.Chemistry.Solving;
@@ -7,7 +8,7 @@ namespace GelDispense.Chemistry.Tests.Solving;
 
 public class SpecSolverTests
 {
-    private static readonly Reagents.ReagentCatalog Catalog = TestReagents.Catalog();
+    private static readonly ReagentCatalog Catalog = TestReagents.Catalog();
 
     private static Recipe Aerogel(double density, double? r = null, double gelVolumeMl = 100) => new()
     {

@@ -77,7 +77,7 @@ internal static class Catalysts
         },
         new()
         {
-            Id = "nh4f", Name = "ammonium fluoride (solid)", Formula = "NH4F", Role = ReagentRole.Catalyst,
+            Id = "nh4f", Name = "ammonium fluoride (solid)", Formula = "NH4F", Role = ReagentRole.Catalyst, IsSolid = true,
             Density = new LinearDensity(1.01, 20, 0),
             GhsHazards = ["H301", "H311", "H331"],
             Source = "M 37.037 g/mol (§7 C). A solid: weighed, never dosed by volume. Crystal density 1.01 g/mL from memory "
