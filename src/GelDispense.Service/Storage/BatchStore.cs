@@ -61,8 +61,10 @@ public sealed class BatchStore(IDatabase database)
         }
 
         await using var connection = await database.OpenAsync(cancellationToken);
+        // Dapper passes a list to Npgsql as one array parameter, and expands it into (@p1, @p2, …) elsewhere.
+        var filter = database.Engine == "Postgres" ? "batch_id = ANY(@batchIds)" : "batch_id IN @batchIds";
         var rows = await connection.QueryAsync<AdditionRow>(
-            $"{SelectAddition} WHERE batch_id IN @batchIds ORDER BY batch_id, ordinal", new { batchIds });
+            $"{SelectAddition} WHERE {filter} ORDER BY batch_id, ordinal", new { batchIds = batchIds.ToArray() });
         return [.. rows];
     }
 
@@ -150,7 +152,7 @@ public sealed class BatchStore(IDatabase database)
     private static async Task<long> RecipeRevisionAsync(DbConnection connection, DbTransaction transaction, NewBatch batch)
     {
         var latest = await connection.QuerySingleOrDefaultAsync<(long Id, long Revision, string ContentHash)?>(
-            "SELECT id, revision, content_hash FROM recipe_revisions WHERE name = @RecipeName ORDER BY revision DESC LIMIT 1",
+            "SELECT id, CAST(revision AS BIGINT), content_hash FROM recipe_revisions WHERE name = @RecipeName ORDER BY revision DESC LIMIT 1",
             new { batch.RecipeName }, transaction);
         if (latest is { } same && same.ContentHash == batch.RecipeHash)
         {

@@ -1,0 +1,77 @@
+using System.Diagnostics;
+using System.Net;
+using System.Net.Sockets;
+
+namespace GelDispense.Service.Tests.Infrastructure;
+
+/// <summary>
+/// A throwaway PostgreSQL cluster from the binaries installed on this machine: initdb into a temp dir, pg_ctl
+/// start on a free loopback port, stop and delete on dispose. initdb refuses to run as root, so it runs as the
+/// postgres user through runuser when needed.
+/// </summary>
+public sealed class LocalPostgres : IAsyncDisposable
+{
+    private readonly string _bin;
+    private readonly string _dataDir;
+
+    private LocalPostgres(string bin, string dataDir, int port)
+    {
+        _bin = bin;
+        _dataDir = dataDir;
+        Port = port;
+    }
+
+    public int Port { get; }
+
+    public string ConnectionString => $"Host=127.0.0.1;Port={Port};Username=postgres;Database=postgres;Pooling=true";
+
+    public static string? FindBinaries() =>
+        Directory.Exists("/usr/lib/postgresql")
+            ? Directory.GetDirectories("/usr/lib/postgresql").Select(d => Path.Combine(d, "bin"))
+                .Where(b => File.Exists(Path.Combine(b, "initdb"))).OrderDescending().FirstOrDefault()
+            : null;
+
+    public static async Task<LocalPostgres> StartAsync()
+    {
+        var bin = FindBinaries() ?? throw new InvalidOperationException("No PostgreSQL binaries under /usr/lib/postgresql.");
+        var dataDir = Path.Combine(Path.GetTempPath(), $"geldispense-pg-{Environment.ProcessId}-{Guid.NewGuid():N}");
+        var port = FreePort();
+        var cluster = new LocalPostgres(bin, dataDir, port);
+        await cluster.RunAsync("initdb", $"-D {dataDir} -U postgres -A trust -E UTF8 --locale=C.UTF-8 --no-sync");
+        await cluster.RunAsync("pg_ctl", $"-D {dataDir} -l {dataDir}/server.log -w -t 30 -o \"-p {port} -k {dataDir} " +
+            "-c listen_addresses=127.0.0.1 -c fsync=off -c synchronous_commit=off -c full_page_writes=off -c max_connections=200\" start");
+        return cluster;
+    }
+
+    public async ValueTask DisposeAsync()
+    {
+        await RunAsync("pg_ctl", $"-D {_dataDir} -m immediate -w stop");
+        Directory.Delete(_dataDir, recursive: true);
+    }
+
+    private async Task RunAsync(string tool, string arguments)
+    {
+        var asRoot = Environment.UserName == "root";
+        var start = new ProcessStartInfo(asRoot ? "runuser" : Path.Combine(_bin, tool))
+        {
+            Arguments = asRoot ? $"-u postgres -- {Path.Combine(_bin, tool)} {arguments}" : arguments,
+            UseShellExecute = false,
+            // The postmaster inherits our pipes; redirecting them would block its exit, so output goes to server.log.
+            RedirectStandardOutput = false,
+            RedirectStandardError = false,
+        };
+        using var process = Process.Start(start) ?? throw new InvalidOperationException($"{tool} did not start.");
+        await process.WaitForExitAsync();
+        if (process.ExitCode != 0)
+        {
+            throw new InvalidOperationException($"{tool} {arguments} exited with {process.ExitCode}.");
+        }
+    }
+
+    private static int FreePort()
+    {
+        using var listener = new TcpListener(IPAddress.Loopback, 0);
+        listener.Start();
+        return ((IPEndPoint)listener.LocalEndpoint).Port;
+    }
+}
