@@ -3,18 +3,21 @@ namespace GelDispense.Chemistry.Replanning;
 /// <summary>
 /// Minimises ‖A z − b‖² subject to z_j ≥ 0 for the bounded variables, by an active-set loop over the
 /// normal equations: solve on the free set, pin the most negative variable at zero, repeat; then release
-/// any pinned variable whose gradient says it wants to grow. Sized for re-plans (a few dozen unknowns).
+/// any pinned variable whose gradient says it wants to grow. An optional linear equality c·z = d is held
+/// exactly through a Lagrange multiplier (the KKT system). Sized for re-plans (a few dozen unknowns).
+/// No maintained .NET library offers bounded least squares with an equality (MathNet.Numerics has
+/// unconstrained solvers only), hence this small routine.
 /// </summary>
 internal static class BoundedLeastSquares
 {
-    public static double[] Solve(double[,] a, double[] b, bool[] bounded)
+    public static double[] Solve(double[,] a, double[] b, bool[] bounded, (double[] C, double D)? equality = null)
     {
         var p = a.GetLength(1);
         var pinned = new bool[p];
         var z = new double[p];
         for (var iteration = 0; iteration < 4 * p + 8; iteration++)
         {
-            z = SolveFree(a, b, pinned);
+            z = SolveFree(a, b, pinned, equality);
             var worst = -1;
             for (var j = 0; j < p; j++)
             {
@@ -30,7 +33,7 @@ internal static class BoundedLeastSquares
                 continue;
             }
 
-            var release = WantsToGrow(a, b, z, pinned);
+            var release = equality is null ? WantsToGrow(a, b, z, pinned) : -1;
             if (release < 0)
             {
                 break;
@@ -81,13 +84,14 @@ internal static class BoundedLeastSquares
         return best;
     }
 
-    private static double[] SolveFree(double[,] a, double[] b, bool[] pinned)
+    private static double[] SolveFree(double[,] a, double[] b, bool[] pinned, (double[] C, double D)? equality)
     {
         var rows = a.GetLength(0);
         var p = a.GetLength(1);
         var free = Enumerable.Range(0, p).Where(j => !pinned[j]).ToArray();
         var m = free.Length;
-        var n = new double[m, m + 1];
+        var size = m + (equality is null ? 0 : 1);
+        var n = new double[size, size + 1];
         for (var x = 0; x < m; x++)
         {
             for (var y = 0; y < m; y++)
@@ -107,10 +111,21 @@ internal static class BoundedLeastSquares
                 t += a[r, free[x]] * b[r];
             }
 
-            n[x, m] = t;
+            n[x, size] = t;
         }
 
-        var solution = GaussianElimination(n, m);
+        if (equality is { } eq)
+        {
+            for (var x = 0; x < m; x++)
+            {
+                n[x, m] = eq.C[free[x]];
+                n[m, x] = eq.C[free[x]];
+            }
+
+            n[m, size] = eq.D;
+        }
+
+        var solution = GaussianElimination(n, size);
         var z = new double[p];
         for (var x = 0; x < m; x++)
         {

@@ -1,5 +1,6 @@
 using GelDispense.Chemistry.Composition;
 using GelDispense.Chemistry.Planning;
+using GelDispense.Chemistry.Reagents;
 using GelDispense.Chemistry.Tolerances;
 
 namespace GelDispense.Chemistry.Replanning;
@@ -10,8 +11,14 @@ namespace GelDispense.Chemistry.Replanning;
 /// </summary>
 internal sealed class ReplanProblem
 {
-    /// <summary>One tolerance of a spec quantity weighs as much as a thousand step limits of proportion.</summary>
+    /// <summary>One tolerance of a spec quantity weighs as much as a thousand step limits of solvent or water proportion.</summary>
     private const double SpecWeight = 1e3;
+
+    /// <summary>
+    /// Precursors, catalysts and additives keep their ratios as firmly as the spec itself: the re-plan moves the
+    /// solvent and the water, which is what a formulator would adjust, not the catalyst.
+    /// </summary>
+    private static double ProportionWeight(ReagentRole role) => role is ReagentRole.Solvent or ReagentRole.Water ? 1 : SpecWeight;
 
     private readonly double[] _lower;
     private readonly int[] _variableLine;
@@ -81,7 +88,7 @@ internal sealed class ReplanProblem
                 continue;
             }
 
-            var unit = options.StepLimitPct(f.Lines[j].ReagentId) / 100 * planned[j] * k0;
+            var unit = options.StepLimitPct(f.Lines[j].ReagentId) / 100 * planned[j] * k0 / ProportionWeight(f.Lines[j].Reagent.Definition.Role);
             var row = new double[p];
             var v = Array.IndexOf(variableLine, j);
             if (v >= 0)
@@ -94,14 +101,19 @@ internal sealed class ReplanProblem
             targets.Add(-lower[j] / unit);
         }
 
+        // Among batch sizes that fit equally well, prefer the smallest that absorbs what is already in the vessel.
+        var pull = new double[p];
+        pull[p - 1] = 1;
+        rows.Add(pull);
+        targets.Add(k0);
+
         return new ReplanProblem(lower, variableLine, [.. rows], targets, [.. f.Lines.Select(l => l.VolumeMlPerG)]);
     }
 
-    /// <summary>Adds the vessel capacity as a heavily weighted condition: the final volume equals the capacity.</summary>
-    public ReplanProblem WithCapacity(double capacityMl, double weight)
+    /// <summary>The vessel capacity as an exact condition on the unknowns: the final volume equals the capacity.</summary>
+    public (double[] C, double D) CapacityEquality(double capacityMl)
     {
-        var p = _variableLine.Length + 1;
-        var row = new double[p];
+        var c = new double[_variableLine.Length + 1];
         var fixedVolume = 0.0;
         for (var j = 0; j < _lower.Length; j++)
         {
@@ -110,11 +122,10 @@ internal sealed class ReplanProblem
 
         for (var v = 0; v < _variableLine.Length; v++)
         {
-            row[v] = weight * _volumePerG[_variableLine[v]] / capacityMl;
+            c[v] = _volumePerG[_variableLine[v]];
         }
 
-        var targets = new List<double>(_targets) { weight * (capacityMl - fixedVolume) / capacityMl };
-        return new ReplanProblem(_lower, _variableLine, [.. _rows, row], targets, _volumePerG);
+        return (c, capacityMl - fixedVolume);
     }
 
     public double[] Masses(double[] z)

@@ -16,8 +16,6 @@ namespace GelDispense.Chemistry.Replanning;
 /// </summary>
 public static class Replanner
 {
-    private const double CapacityWeight = 1e6;
-
     public static ReplanResult Replan(DispensingPlan plan, IReadOnlyList<RecordedAddition> additions, PlanRequest request, ReplanOptions? options = null)
     {
         options ??= new ReplanOptions();
@@ -34,13 +32,13 @@ public static class Replanner
         if (planOptions.VesselCapacityMl is { } capacity && Volume(f, final) > capacity * (1 + 1e-9))
         {
             capacityLimited = true;
-            var withCap = problem.WithCapacity(capacity, CapacityWeight);
-            final = withCap.Masses(BoundedLeastSquares.Solve(withCap.Matrix, withCap.Target, withCap.Bounded));
+            z = BoundedLeastSquares.Solve(problem.Matrix, problem.Target, problem.Bounded, problem.CapacityEquality(capacity));
+            final = problem.Masses(z);
         }
 
-        var replanned = PlanBuilder.Build(f.WithMasses(final), request, new HashSet<int>(done.Keys.Where(i => !options.AllowTopUps || final[i] <= done[i] + 1e-12)));
+        var replanned = PlanBuilder.Build(f.WithMasses(final), request, new HashSet<int>(done.Keys.Where(i => !options.AllowTopUps || final[i] <= done[i] * (1 + 1e-6))));
         var inside = quantities.All(q => q.Target.Accepts(q.Evaluate(final)));
-        var topUps = done.Where(d => final[d.Key] > d.Value + 1e-9)
+        var topUps = done.Where(d => final[d.Key] > d.Value * (1 + 1e-6))
             .Select(d => new TopUp(StepOf(plan, d.Key), f.Lines[d.Key].ReagentId, final[d.Key] - d.Value)).ToArray();
         return new ReplanResult(replanned, inside, capacityLimited, problem.Scale(z), topUps, Warnings(quantities, final, inside, capacityLimited));
     }
