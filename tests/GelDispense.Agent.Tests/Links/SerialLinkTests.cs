@@ -7,12 +7,8 @@ using GelDispense.Agent.Tests.Support;
 namespace GelDispense.Agent.Tests.Links;
 
 /// <summary>The serial link over a real pseudo-terminal: SerialPort on the slave, our writes on the master.</summary>
-public sealed class SerialLinkTests : IDisposable
+public sealed class SerialLinkTests : TempDirectoryTest
 {
-    private readonly string _dir = Directory.CreateTempSubdirectory("gd-serial-").FullName;
-
-    public void Dispose() => Directory.Delete(_dir, recursive: true);
-
     [Fact]
     public async Task Lines_arrive_split_and_in_order_with_mixed_endings_after_the_first_partial_line_is_dropped()
     {
@@ -58,7 +54,7 @@ public sealed class SerialLinkTests : IDisposable
     [Fact]
     public async Task A_missing_port_is_reported_by_name_and_retried_until_it_appears()
     {
-        var path = Path.Combine(_dir, "balance");
+        var path = Path.Combine(Dir, "balance");
         await using var link = FastLinks.Serial(path);
         var status = new StatusLog(link);
         link.Start();
@@ -77,7 +73,7 @@ public sealed class SerialLinkTests : IDisposable
     [Fact]
     public async Task A_hang_up_mid_line_is_reported_lost_then_the_link_reopens_without_gluing_half_lines()
     {
-        var path = Path.Combine(_dir, "balance");
+        var path = Path.Combine(Dir, "balance");
         var first = PseudoTerminal.Open();
         SymlinkPoint.Point(path, first.SlavePath);
         await using var link = FastLinks.Serial(path);

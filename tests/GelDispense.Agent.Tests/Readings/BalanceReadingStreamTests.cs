@@ -8,16 +8,12 @@ using GelDispense.Agent.Tests.Support;
 namespace GelDispense.Agent.Tests.Readings;
 
 /// <summary>Link, codec and stability together over a real pseudo-terminal, including a pulled cable.</summary>
-public sealed class BalanceReadingStreamTests : IDisposable
+public sealed class BalanceReadingStreamTests : TempDirectoryTest
 {
-    private readonly string _dir = Directory.CreateTempSubdirectory("gd-stream-").FullName;
-
-    public void Dispose() => Directory.Delete(_dir, recursive: true);
-
     [Fact]
     public async Task After_a_hang_up_no_reading_is_stable_until_it_has_earned_a_new_window()
     {
-        var path = Path.Combine(_dir, "balance");
+        var path = Path.Combine(Dir, "balance");
         var first = PseudoTerminal.Open();
         SymlinkPoint.Point(path, first.SlavePath);
         await using var link = FastLinks.Serial(path, LineEnding.Lf);

@@ -1,0 +1,74 @@
+using GelDispense.Agent.Formats;
+using GelDispense.Agent.Links;
+using GelDispense.Agent.Readings;
+using GelDispense.Agent.Simulation;
+using GelDispense.Agent.Stability;
+using GelDispense.Agent.Tests.Support;
+
+namespace GelDispense.Agent.Tests.Simulation;
+
+/// <summary>The simulator on a real pseudo-terminal, read back through the serial link, parsed and judged.</summary>
+public sealed class SimulatorOverPtyTests : TempDirectoryTest
+{
+    private static SimulatorHost Host(SimulatorSettings settings, ITechnician technician, ISimulatorPort port, LineFormat format) =>
+        new(new BalanceSimulator(settings, technician, new Random(17)), new SampleRenderer(format, settings.ReadabilityG, new Random(18)), port, settings, TimeProvider.System);
+
+    [Fact]
+    public async Task A_simulated_pour_reads_back_as_a_confirmable_reading_of_the_poured_mass()
+    {
+        var settings = new SimulatorSettings { SampleInterval = TimeSpan.FromMilliseconds(20), SettlingTimeConstant = TimeSpan.FromMilliseconds(150), GarbageProbability = 0.05 };
+        var technician = new ScriptedTechnician([new PourStep(4.0, OverPourFraction: 0.05)], new TechnicianPace { PauseBetweenSteps = TimeSpan.FromMilliseconds(200), FastGPerS = 20, SlowGPerS = 5 });
+        using var port = new PtySimulatorPort(Path.Combine(Dir, "balance"));
+        using var stop = new CancellationTokenSource(TimeSpan.FromSeconds(30));
+        var hosting = Host(settings, technician, port, BuiltInFormats.Column).RunAsync(null, stop.Token);
+        await using var link = FastLinks.Serial(port.SlavePath);
+        var stream = new BalanceReadingStream(link, new LineParser(BuiltInFormats.Column), new StabilityDetector(new StabilitySettings(), TimeProvider.System));
+        link.Start();
+
+        StabilityVerdict? confirmed = null;
+        await foreach (var e in stream.ReadAsync(stop.Token))
+        {
+            if (e.Verdict is { Confirmable: true, Reading.ValueG: > 4.0 } verdict)
+            {
+                confirmed = verdict;
+                break;
+            }
+        }
+
+        await stop.CancelAsync();
+        await Assert.ThrowsAnyAsync<OperationCanceledException>(() => hosting);
+        Assert.Equal(4.2, confirmed!.Reading.ValueG!.Value, 3);
+        Assert.Equal(StabilityBasis.BalanceFlag, confirmed.Basis);
+    }
+
+    [Fact]
+    public async Task A_simulated_disconnect_is_seen_as_lost_and_the_link_comes_back_on_the_same_path()
+    {
+        var settings = new SimulatorSettings { SampleInterval = TimeSpan.FromMilliseconds(20), DisconnectEvery = TimeSpan.FromMilliseconds(600), DisconnectFor = TimeSpan.FromMilliseconds(300) };
+        var path = Path.Combine(Dir, "balance");
+        using var port = new PtySimulatorPort(path);
+        using var stop = new CancellationTokenSource(TimeSpan.FromSeconds(30));
+        var hosting = Host(settings, new ScriptedTechnician([], new TechnicianPace()), port, BuiltInFormats.Keyed).RunAsync(null, stop.Token);
+        await using var link = FastLinks.Serial(path);
+        var status = new StatusLog(link);
+        link.Start();
+
+        await status.WaitForAsync(LinkStatus.Lost, seconds: 15);
+        var afterLoss = status.Changes.Count;
+        await status.WaitForAsync(LinkStatus.Connected, afterLoss, seconds: 15);
+        var parser = new LineParser(BuiltInFormats.Keyed);
+        ReceivedLine? readingAfterReconnect = null;
+        await foreach (var line in link.ReadLinesAsync(stop.Token))
+        {
+            if (line.ConnectionEpoch >= 2 && parser.Parse(line.Line).IsReading)
+            {
+                readingAfterReconnect = line;
+                break;
+            }
+        }
+
+        await stop.CancelAsync();
+        await Assert.ThrowsAnyAsync<OperationCanceledException>(() => hosting);
+        Assert.NotNull(readingAfterReconnect);
+    }
+}
