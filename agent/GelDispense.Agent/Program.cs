@@ -1,1 +1,3 @@
-Console.WriteLine("placeholder");
+using GelDispense.Agent.Commands;
+
+return await AgentCommandLine.Build().Parse(args).InvokeAsync();

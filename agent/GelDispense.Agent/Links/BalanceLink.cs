@@ -120,7 +120,7 @@ public sealed class BalanceLink : IBalanceLink
             }
             else
             {
-                Report(LinkStatus.Reconnecting, $"reopening {Describe}", 1);
+                Report(LinkStatus.Reconnecting, $"reopening {Describe}", 0);
             }
 
             IBalanceConnection connection;

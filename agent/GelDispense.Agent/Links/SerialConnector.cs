@@ -9,10 +9,16 @@ public sealed class SerialConnector(SerialLinkSettings settings) : IBalanceConne
 
     public IBalanceConnection Open()
     {
-        // Without this check a missing device reads as "access denied", which sends people after permissions.
-        if (!File.Exists(settings.PortPath))
+        // Without these checks a missing device reads as "access denied", which sends people after permissions.
+        var info = new FileInfo(settings.PortPath);
+        if (!info.Exists && info.LinkTarget is null)
         {
             throw new IOException($"serial port {settings.PortPath} does not exist");
+        }
+
+        if (info.LinkTarget is { } target && info.ResolveLinkTarget(returnFinalTarget: true) is { Exists: false })
+        {
+            throw new IOException($"serial port {settings.PortPath} points to {target}, which does not exist (adapter unplugged?)");
         }
 
         var port = new SerialPort(settings.PortPath, settings.BaudRate, settings.Parity, settings.DataBits, settings.StopBits)

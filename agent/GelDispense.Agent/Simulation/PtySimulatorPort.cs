@@ -31,7 +31,15 @@ public sealed class PtySimulatorPort : ISimulatorPort
 
     public int Receive(Span<byte> buffer) => _pty.Read(buffer, 0);
 
-    public void Disconnect() => _pty.HangUp();
+    /// <summary>Hangs up and removes the fixed path, as unplugging a USB adapter removes its by-id name.</summary>
+    public void Disconnect()
+    {
+        _pty.HangUp();
+        if (_linkPath is not null)
+        {
+            File.Delete(_linkPath);
+        }
+    }
 
     public void Reconnect()
     {
