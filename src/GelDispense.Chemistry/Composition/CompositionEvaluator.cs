@@ -36,7 +36,7 @@ public static class CompositionEvaluator
             Oxides = OxideShares(formulation, totals),
             Stages = StageSummaries(formulation),
             Warnings = CompositionWarnings.For(formulation, totals),
-            Cautions = GhsStatements.Cautions(lines.Select(l => l.Reagent).Distinct()),
+            Cautions = GhsStatements.Cautions(lines.Select(l => l.Reagent)),
         };
     }
 

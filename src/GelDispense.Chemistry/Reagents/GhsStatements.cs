@@ -82,6 +82,10 @@ public static class GhsStatements
         ["H420"] = "Harms public health and the environment by destroying ozone in the upper atmosphere",
     }.ToFrozenDictionary(StringComparer.Ordinal);
 
+    /// <summary>The caution line of each known code, formatted once: every composition and plan step shows them.</summary>
+    private static readonly FrozenDictionary<string, string> LineByCode =
+        ByCode.ToFrozenDictionary(e => e.Key, e => $"{e.Key}: {e.Value}.", StringComparer.Ordinal);
+
     /// <summary>Every code this table knows.</summary>
     public static IEnumerable<string> Codes => ByCode.Keys;
 
@@ -93,7 +97,7 @@ public static class GhsStatements
     public static IReadOnlyList<string> Cautions(IEnumerable<string> codes)
     {
         var normalized = codes.Select(Normalize).ToList();
-        return HandlingCautions.Compose(normalized, HandlingCautions.ClassesOf(normalized));
+        return HandlingCautions.Compose(normalized, HandlingCautions.MaskOf(HandlingCautions.ClassesOf(normalized)));
     }
 
     /// <summary>
@@ -102,14 +106,30 @@ public static class GhsStatements
     /// </summary>
     public static IReadOnlyList<string> Cautions(IEnumerable<PreparedReagent> reagents)
     {
-        var list = reagents.ToList();
-        var codes = list.SelectMany(r => r.Definition.GhsHazards).Select(Normalize).ToList();
-        var classes = HandlingCautions.ClassesOf(codes);
-        classes.UnionWith(list.SelectMany(r => HandlingCautions.ClassesOf(r.Definition)));
-        return HandlingCautions.Compose(codes, classes);
+        List<string>? codes = null;
+        var classMask = 0;
+        PreparedReagent? first = null;
+        foreach (var r in reagents)
+        {
+            first ??= r;
+            if (codes is null && !ReferenceEquals(r, first))
+            {
+                codes = [.. first.Hazards.Codes];
+            }
+
+            codes?.AddRange(r.Hazards.Codes);
+            classMask |= r.Hazards.ClassMask;
+        }
+
+        // One reagent, however often listed, has the lines it was prepared with.
+        return codes is not null ? HandlingCautions.Compose(codes, classMask) : first?.Hazards.Cautions ?? [];
     }
 
-    private static string Normalize(string code)
+    /// <summary>"H225: Highly flammable liquid and vapour." for a known code, else a line that sends the reader to the SDS.</summary>
+    internal static string CautionLine(string code) =>
+        LineByCode.TryGetValue(code, out var line) ? line : $"{code}: not a hazard code known here; see the SDS.";
+
+    internal static string Normalize(string code)
     {
         var trimmed = (code ?? "").Trim();
         return trimmed.StartsWith('h') ? "H" + trimmed[1..] : trimmed;

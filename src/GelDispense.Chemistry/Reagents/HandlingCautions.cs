@@ -68,18 +68,55 @@ internal static class HandlingCautions
         }
     }
 
-    public static IReadOnlyList<string> Compose(IEnumerable<string> codes, ISet<HazardClass> classes)
+    /// <summary>One bit per class, so the classes of every reagent in a sol combine with a bitwise or.</summary>
+    public static int MaskOf(IEnumerable<HazardClass> classes)
     {
-        var lines = codes.Where(c => c.Length > 0).Distinct(StringComparer.Ordinal).Order(StringComparer.Ordinal)
-            .Select(c => GhsStatements.TryGetStatement(c, out var text) ? $"{c}: {text}." : $"{c}: not a hazard code known here; see the SDS.")
-            .ToList();
-        lines.AddRange(AdviceInOrder.Where(a => classes.Contains(a.Class)).Select(a => a.Advice));
-        if (lines.Count > 0)
+        var mask = 0;
+        foreach (var c in classes)
         {
-            lines.Add(DeferToSds);
+            mask |= 1 << (int)c;
         }
 
-        return lines;
+        return mask;
+    }
+
+    /// <summary>
+    /// Statement lines for the distinct codes in ordinal order, then the advice of each class in <paramref name="classMask"/>,
+    /// then the SDS line. Builds the lines in <paramref name="codes"/> itself (sorted, de-duplicated, mapped) and returns it,
+    /// so the list handed in becomes the result.
+    /// </summary>
+    public static List<string> Compose(List<string> codes, int classMask)
+    {
+        codes.RemoveAll(c => c.Length == 0);
+        codes.Sort(StringComparer.Ordinal);
+        var count = 0;
+        string? previous = null;
+        for (var i = 0; i < codes.Count; i++)
+        {
+            var code = codes[i];
+            if (!string.Equals(code, previous, StringComparison.Ordinal))
+            {
+                codes[count++] = GhsStatements.CautionLine(code);
+            }
+
+            previous = code;
+        }
+
+        codes.RemoveRange(count, codes.Count - count);
+        foreach (var (hazardClass, advice) in AdviceInOrder)
+        {
+            if ((classMask & (1 << (int)hazardClass)) != 0)
+            {
+                codes.Add(advice);
+            }
+        }
+
+        if (codes.Count > 0)
+        {
+            codes.Add(DeferToSds);
+        }
+
+        return codes;
     }
 
     private static HazardClass? ClassOf(string code) => code switch

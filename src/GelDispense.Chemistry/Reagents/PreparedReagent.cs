@@ -47,6 +47,8 @@ public sealed class PreparedReagent
 
     public ChemicalFormula? OxideFormula { get; private init; }
 
+    internal ReagentHazards Hazards { get; private init; } = null!;
+
     /// <summary>Prepares a reagent or throws <see cref="InvalidInputException"/> listing every problem under <paramref name="field"/>.</summary>
     public static PreparedReagent Prepare(Reagent reagent, string field = "reagent")
     {
@@ -127,6 +129,7 @@ public sealed class PreparedReagent
             AlcoholReleasedGPerG = precursor is null ? 0
                 : precursorPerG * reagent.Precursor!.HydrolysableGroups * precursor.Value.Alcohol.MolarMassGPerMol,
             OxideFormula = precursor?.Oxide,
+            Hazards = ReagentHazards.Of(reagent),
         };
     }
 
