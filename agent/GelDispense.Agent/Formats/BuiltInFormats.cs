@@ -22,18 +22,22 @@ public static class BuiltInFormats
     };
 
     /// <summary>
-    /// <c>"mass=12.3456,unit=g,steady=1"</c>: comma-separated key=value pairs in any order; extra keys are
-    /// ignored. Markers: <c>status=over</c>, <c>status=under</c>, <c>status=fault</c>.
+    /// <c>"mass=12.3456,unit=g,steady=1"</c>: comma-separated key=value pairs, mass before unit before steady;
+    /// other keys (a sequence number, a temperature) may stand anywhere and are ignored.
+    /// Markers: <c>status=over</c>, <c>status=under</c>, <c>status=fault</c>.
     /// </summary>
     public static LineFormat Keyed { get; } = new()
     {
         Name = "keyed",
-        Pattern = @"^(?=(?:.*,)?mass=(?<value>[+-]?\d+(?:\.\d+)?)(?:,|$))(?=(?:.*,)?unit=(?<unit>[A-Za-z]{1,3})(?:,|$))(?=(?:.*,)?steady=(?<flag>[01])(?:,|$))",
+
+        // One forward pass: a fixed key order lets the engine skip unknown fields without lookaheads, and the
+        // markers start with a literal, which the engine finds with a vectorised search.
+        Pattern = @"^(?:[a-z]+=[^,]*,)*?mass=(?<value>[+-]?\d+(?:\.\d+)?),(?:[a-z]+=[^,]*,)*?unit=(?<unit>[A-Za-z]{1,3}),(?:[a-z]+=[^,]*,)*?steady=(?<flag>[01])(?:,[a-z]+=[^,]*)*$",
         StableFlag = "1",
-        OverloadPattern = @"(?:^|,)status=over(?:,|$)",
-        UnderloadPattern = @"(?:^|,)status=under(?:,|$)",
-        ErrorPattern = @"(?:^|,)status=fault(?:,|$)",
-        Description = "key=value pairs: mass, unit, steady (1 settled, 0 moving), status for markers",
+        OverloadPattern = @"(?<![^,])status=over(?![^,])",
+        UnderloadPattern = @"(?<![^,])status=under(?![^,])",
+        ErrorPattern = @"(?<![^,])status=fault(?![^,])",
+        Description = "key=value pairs: mass, unit, steady (1 settled, 0 moving) in that order; status for markers",
     };
 
     /// <summary>

@@ -30,9 +30,9 @@ public class BuiltInFormatsTests
 
     [Theory]
     [InlineData("mass=12.3456,unit=g,steady=1", 12.3456, true)]
-    [InlineData("steady=0,unit=mg,mass=-150.5", -0.1505, false)]
-    [InlineData("seq=41,mass=0.0213,unit=kg,steady=1,temp=21.4", 21.3, true)]
-    public void Keyed_lines_give_grams_and_the_balance_flag_in_any_key_order(string line, double expectedG, bool stable)
+    [InlineData("mass=-150.5,unit=mg,steady=0", -0.1505, false)]
+    [InlineData("seq=41,mass=0.0213,unit=kg,t=21.4,steady=1,temp=21.4", 21.3, true)]
+    public void Keyed_lines_give_grams_and_the_balance_flag_with_other_keys_ignored(string line, double expectedG, bool stable)
     {
         var reading = Keyed.Parse(line).Reading!;
 
@@ -96,6 +96,8 @@ public class BuiltInFormatsTests
     [InlineData("keyed", "mass=12.3456,unit=g")]
     [InlineData("keyed", "mass=1.2.3,unit=g,steady=1")]
     [InlineData("keyed", "xmass=1,unit=g,steady=1")]
+    [InlineData("keyed", "steady=1,unit=g,mass=1.5")]
+    [InlineData("keyed", "mass=1.5,unit=g,steady=1,")]
     [InlineData("bare", "12.34.56")]
     [InlineData("bare", "NaN")]
     [InlineData("bare", "Infinity")]
