@@ -9,25 +9,25 @@ namespace GelDispense.Agent.Commands;
 /// </summary>
 internal sealed class BalanceOptions
 {
-    public Option<FileInfo?> Config { get; } = new("--config", "-c") { Description = "Station config file (JSON)" };
+    public Option<FileInfo?> Config { get; } = new("--config", "-c") { HelpName = "file", Description = "Station config file (JSON)" };
 
-    public Option<string?> Port { get; } = new("--port", "-p") { Description = "Serial device path, e.g. /dev/ttyUSB0 or /dev/serial/by-id/…" };
+    public Option<string?> Port { get; } = new("--port", "-p") { HelpName = "path", Description = "Serial device path, e.g. /dev/ttyUSB0 or /dev/serial/by-id/…" };
 
-    public Option<string?> Tcp { get; } = new("--tcp") { Description = "Balance on the network, host:port" };
+    public Option<string?> Tcp { get; } = new("--tcp") { HelpName = "host:port", Description = "Balance on the network, host:port" };
 
-    public Option<string?> Format { get; } = new("--format", "-f") { Description = "Line format: column, keyed, bare, or a name from the config file" };
+    public Option<string?> Format { get; } = new("--format", "-f") { HelpName = "name", Description = "Line format: column, keyed, bare, or a name from the config file" };
 
-    public Option<int?> Baud { get; } = new("--baud") { Description = "Baud rate (default 9600)" };
+    public Option<int?> Baud { get; } = new("--baud") { HelpName = "rate", Description = "Baud rate (default 9600)" };
 
-    public Option<string?> Parity { get; } = new("--parity") { Description = "none, even, odd, mark or space" };
+    public Option<string?> Parity { get; } = new("--parity") { HelpName = "parity", Description = "none, even, odd, mark or space" };
 
-    public Option<int?> DataBits { get; } = new("--data-bits") { Description = "5, 6, 7 or 8" };
+    public Option<int?> DataBits { get; } = new("--data-bits") { HelpName = "bits", Description = "5, 6, 7 or 8" };
 
-    public Option<string?> StopBits { get; } = new("--stop-bits") { Description = "1, 1.5 or 2" };
+    public Option<string?> StopBits { get; } = new("--stop-bits") { HelpName = "bits", Description = "1, 1.5 or 2" };
 
-    public Option<string?> Handshake { get; } = new("--handshake") { Description = "none, xonxoff, rtscts or both" };
+    public Option<string?> Handshake { get; } = new("--handshake") { HelpName = "kind", Description = "none, xonxoff, rtscts or both" };
 
-    public Option<string?> LineEnding { get; } = new("--line-ending") { Description = "Terminator for commands: crlf, lf or cr" };
+    public Option<string?> LineEnding { get; } = new("--line-ending") { HelpName = "ending", Description = "Terminator for commands: crlf, lf or cr" };
 
     public void AddTo(Command command)
     {

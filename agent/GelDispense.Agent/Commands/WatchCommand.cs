@@ -12,8 +12,8 @@ internal static class WatchCommand
     public static Command Create()
     {
         var balance = new BalanceOptions();
-        var count = new Option<int?>("--count", "-n") { Description = "Stop after this many lines" };
-        var seconds = new Option<double?>("--seconds", "-s") { Description = "Stop after this many seconds" };
+        var count = new Option<int?>("--count", "-n") { HelpName = "lines", Description = "Stop after this many lines" };
+        var seconds = new Option<double?>("--seconds", "-s") { HelpName = "s", Description = "Stop after this many seconds" };
         var command = new Command("watch", "Show what the balance sends: the raw line, the reading in grams, stability and drift. Ctrl+C stops.");
         balance.AddTo(command);
         command.Options.Add(count);

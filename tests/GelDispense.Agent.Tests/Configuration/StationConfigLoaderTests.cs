@@ -82,4 +82,20 @@ public class StationConfigLoaderTests
 
         Assert.Equal(new InputError("config", "/nonexistent/station.json", "file not found"), ex.Errors[0]);
     }
+
+    [Fact]
+    public void The_example_station_file_shipped_with_the_agent_loads_and_resolves()
+    {
+        var root = new DirectoryInfo(AppContext.BaseDirectory);
+        while (root is not null && !File.Exists(Path.Combine(root.FullName, "GelDispense.sln")))
+        {
+            root = root.Parent;
+        }
+
+        var config = StationConfigLoader.Load(Path.Combine(root!.FullName, "agent", "GelDispense.Agent", "station.example.json"));
+        var setup = BalanceSetup.From(config);
+
+        Assert.Equal("bay-3", config.StationId);
+        Assert.Equal(TimeSpan.FromSeconds(10), setup.Reconnect.SilenceLimit);
+    }
 }

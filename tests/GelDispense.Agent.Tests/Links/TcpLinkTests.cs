@@ -53,4 +53,21 @@ public class TcpLinkTests
         Assert.Equal(1, retry.Attempt);
         Assert.False(await link.SendAsync("X", CancellationToken.None));
     }
+
+    [Fact]
+    public async Task A_balance_that_falls_silent_past_the_limit_is_treated_as_unplugged()
+    {
+        using var listener = new TcpListener(IPAddress.Loopback, 0);
+        listener.Start();
+        var port = ((IPEndPoint)listener.LocalEndpoint).Port;
+        var connector = new TcpConnector(new TcpLinkSettings { Host = "127.0.0.1", Port = port, ReadTimeout = TimeSpan.FromMilliseconds(50) });
+        await using var link = new BalanceLink(connector, GelDispense.Agent.Formats.LineEnding.CrLf, 128, FastLinks.Reconnect with { SilenceLimit = TimeSpan.FromMilliseconds(300) }, TimeProvider.System);
+        var status = new StatusLog(link);
+        link.Start();
+        using var quiet = await listener.AcceptTcpClientAsync();
+
+        var lost = await status.WaitForAsync(LinkStatus.Lost);
+
+        Assert.Equal("no data for 0.3 s", lost.Reason);
+    }
 }
