@@ -11,7 +11,7 @@ public sealed class CompositionApi(ReagentDirectory reagents) : CompositionServi
     public override async Task<Contracts.V1.Composition> EvaluateComposition(EvaluateCompositionRequest request, ServerCallContext context)
     {
         var recipe = RecipeMapping.ToChemistry(request.Recipe);
-        var catalog = await reagents.LookupAsync(context.CancellationToken);
+        var catalog = await reagents.LookupAsync(recipe, context.CancellationToken);
         return CompositionMapping.ToContract(CompositionEvaluator.Evaluate(recipe, catalog));
     }
 }

@@ -12,11 +12,12 @@ public sealed class Planner(ReagentDirectory reagents)
         CancellationToken cancellationToken)
     {
         var chemistryRecipe = RecipeMapping.ToChemistry(recipe);
-        var request = new PlanRequest(
-            DeviceMapping.ToChemistry(balance, "balance"),
-            DeviceMapping.ToChemistry(pipette, "pipette"),
-            DeviceMapping.ToChemistry(air, "air"));
-        var catalog = await reagents.LookupAsync(cancellationToken);
+        var request = Request(balance, pipette, air);
+        var catalog = await reagents.LookupAsync(chemistryRecipe, cancellationToken);
         return PlanMapping.ToContract(PlanBuilder.Build(chemistryRecipe, catalog, request), recipe!.Scale);
     }
+
+    /// <summary>The station's devices and air as the library's plan request; bad values fail with their field names.</summary>
+    public static PlanRequest Request(Contract.BalanceProfile? balance, Contract.PipetteProfile? pipette, Contract.AirConditions? air) =>
+        new(DeviceMapping.ToChemistry(balance, "balance"), DeviceMapping.ToChemistry(pipette, "pipette"), DeviceMapping.ToChemistry(air, "air"));
 }

@@ -1,3 +1,4 @@
+using GelDispense.Chemistry.Composition;
 using GelDispense.Chemistry.Errors;
 using GelDispense.Chemistry.Reagents;
 using GelDispense.Service.Mapping;
@@ -19,10 +20,22 @@ public sealed class ReagentDirectory(ReagentStore store)
 
     public IEnumerable<Reagent> BuiltIn => BuiltInReagents.All;
 
-    public async Task<IReagentLookup> LookupAsync(CancellationToken cancellationToken)
+    /// <summary>
+    /// The catalog for one recipe. Only the custom reagents the recipe names are read, and none at all when it
+    /// names only built-in and inline reagents, so most requests do not touch the database here.
+    /// </summary>
+    public async Task<IReagentLookup> LookupAsync(Recipe recipe, CancellationToken cancellationToken)
     {
-        var custom = await CustomAsync(cancellationToken);
-        return custom.Count == 0
+        var stored = recipe.Components.Select(c => c.ReagentId?.ToLowerInvariant())
+            .Where(id => id is not null && !IsBuiltIn(id) && !recipe.InlineReagents.Any(r => string.Equals(r.Id, id, StringComparison.OrdinalIgnoreCase)))
+            .OfType<string>().Distinct().ToArray();
+        if (stored.Length == 0)
+        {
+            return _builtIn;
+        }
+
+        var custom = (await store.ReagentBodiesAsync(stored, cancellationToken)).Select(FromJson).ToArray();
+        return custom.Length == 0
             ? _builtIn
             : new LayeredReagentLookup([.. custom.Select(r => PreparedReagent.Prepare(r, $"reagent '{r.Id}'"))], _builtIn);
     }

@@ -15,7 +15,14 @@ namespace GelDispense.Service.Batches;
 /// result, other content is refused (ALREADY_EXISTS). Concurrent additions to one batch are serialised by the
 /// batch version; a writer that loses reads again, so nothing is lost or counted twice.
 /// </summary>
-public sealed class AdditionRecorder(BatchLedger ledger, BatchStore store, ReagentDirectory reagents, BatchEventSignal signal, TimeProvider time)
+/// <remarks>
+/// An addition is within window when its step is still to be made in the plan in force and the step's true mass so
+/// far (this addition plus any earlier ones on the step, buoyancy-corrected) lies within the step's acceptance band
+/// (<see cref="PlanStep.AcceptanceG"/>: the spec's window less the device's expected error) of its target. An
+/// addition out of window re-plans the remaining steps; the re-plan is stored as the next plan revision in the same
+/// transaction as the addition.
+/// </remarks>
+public sealed class AdditionRecorder(BatchLedger ledger, BatchStore store, BatchPlanCache plans, BatchEventSignal signal, TimeProvider time)
 {
     public static readonly string[] Sources = ["balance", "manual", "dispenser"];
 
@@ -26,24 +33,22 @@ public sealed class AdditionRecorder(BatchLedger ledger, BatchStore store, Reage
             request.ReadingG.ToString("R", CultureInfo.InvariantCulture), request.Stable, source, request.LotId));
         for (var attempt = 0; ; attempt++)
         {
-            var row = await ledger.FindAsync(request.BatchId, "batchId", cancellationToken);
-            var additions = await store.AdditionsAsync([row.Id], cancellationToken);
+            var head = await store.HeadAsync(request.BatchId, cancellationToken) ?? throw ApiException.NotFound("batchId", request.BatchId, "batch");
+            var additions = await store.AdditionsAsync([head.Id], cancellationToken);
             if (additions.FirstOrDefault(a => a.AdditionId == request.AdditionId) is { } earlier)
             {
-                return Replay(earlier, contentHash);
+                return await ReplayAsync(earlier, contentHash, cancellationToken);
             }
 
-            BatchLedger.RequireInProgress(row, "batchId");
-            var plan = JsonParser.Default.Parse<DispensingPlan>(row.Plan);
-            var step = plan.Steps.FirstOrDefault(s => s.Index == request.StepIndex)
+            BatchLedger.RequireInProgress(head.Id, head.Status, "batchId");
+            var inForce = await plans.GetAsync(head.Id, head.PlanRevision, cancellationToken);
+            var step = inForce.Plan.Steps.FirstOrDefault(s => s.Index == request.StepIndex)
                 ?? throw new InvalidInputException("stepIndex", request.StepIndex.ToString(CultureInfo.InvariantCulture),
-                    $"the plan has no such step (steps 0 to {plan.Steps.Count - 1})");
-            var recipe = JsonParser.Default.Parse<Recipe>(row.RecipeBody);
-            var setup = JsonParser.Default.Parse<CreateBatchRequest>(row.Setup);
-            var chemistry = await BatchChemistry.LoadAsync(recipe, setup.Air, reagents, cancellationToken);
+                    $"the plan has no such step (steps 0 to {inForce.Plan.Steps.Count - 1})");
 
             var at = time.GetUtcNow();
-            var trueMassG = chemistry.TrueMassG(step, request.ReadingG);
+            var trueMassG = inForce.Basis.TrueMassG(step.Index, request.ReadingG);
+            var stepMassG = trueMassG + additions.Where(a => a.StepIndex == step.Index).Sum(a => a.TrueMassG);
             var addition = new Addition
             {
                 AdditionId = request.AdditionId,
@@ -53,26 +58,37 @@ public sealed class AdditionRecorder(BatchLedger ledger, BatchStore store, Reage
                 Source = source,
                 LotId = request.LotId,
                 TrueMassG = trueMassG,
-                WithinWindow = Math.Abs(trueMassG - step.TargetMassG) <= step.ToleranceG,
+                // The relative slack keeps a reading exactly at the target in window when the band is zero.
+                WithinWindow = !step.Done && Math.Abs(stepMassG - step.TargetMassG) <= step.AcceptanceG + (1e-9 * step.TargetMassG),
                 RecordedAt = Timestamp.FromDateTimeOffset(at),
+                PlanRevision = (int)inForce.Revision,
             };
-            var all = additions.Select(BatchMapping.ToContract).Append(addition).ToArray();
-            var response = new RecordAdditionResponse { Addition = addition, AsMade = chemistry.AsMade(row.Id, plan, all, recipe.Spec) };
+            Addition[] all = [.. additions.Select(BatchMapping.ToContract), addition];
+            var outlook = addition.WithinWindow ? BatchOutlook.Keep(inForce, all) : BatchOutlook.Replan(inForce, all);
+            var revision = outlook.Replanned ? inForce.Revision + 1 : inForce.Revision;
+            var response = Response(addition, head.Id, inForce.Basis, all, outlook, revision);
             var stored = new AdditionRow
             {
-                BatchId = row.Id, AdditionId = request.AdditionId, Ordinal = additions.Count, StepIndex = request.StepIndex,
+                BatchId = head.Id, AdditionId = request.AdditionId, Ordinal = additions.Count, StepIndex = request.StepIndex,
                 ReadingG = request.ReadingG, Stable = request.Stable, Source = source, LotId = request.LotId, TrueMassG = trueMassG,
                 WithinWindow = addition.WithinWindow, RecordedAt = TimeText.Format(at), ContentHash = contentHash,
-                Response = JsonFormatter.Default.Format(response),
+                Response = JsonFormatter.Default.Format(response), PlanRevision = inForce.Revision,
             };
+            var replan = outlook.Replanned
+                ? new PlanRevisionRow
+                {
+                    BatchId = head.Id, Revision = revision, Plan = JsonFormatter.Default.Format(outlook.Plan), ScaleFactor = outlook.ScaleFactor,
+                    CauseAdditionId = request.AdditionId, CreatedAt = TimeText.Format(at),
+                }
+                : null;
             var recorded = new BatchEvent
             {
-                BatchId = row.Id, Type = BatchEventType.AdditionRecorded, OccurredAt = addition.RecordedAt, Addition = addition, Status = BatchStatus.InProgress,
+                BatchId = head.Id, Type = BatchEventType.AdditionRecorded, OccurredAt = addition.RecordedAt, Addition = addition, Status = BatchStatus.InProgress,
             };
-            var outcome = await store.TryAppendAdditionAsync(stored, row.Version, plan: null, JsonFormatter.Default.Format(recorded), at, cancellationToken);
+            var outcome = await store.TryAppendAdditionAsync(stored, head.Version, replan, JsonFormatter.Default.Format(recorded), at, cancellationToken);
             if (outcome.Written)
             {
-                signal.Notify(row.Id);
+                signal.Notify(head.Id);
                 return response;
             }
 
@@ -82,15 +98,34 @@ public sealed class AdditionRecorder(BatchLedger ledger, BatchStore store, Reage
 
     public async Task<AsMade> AsMadeAsync(string batchId, CancellationToken cancellationToken)
     {
-        var row = await ledger.FindAsync(batchId, "batchId", cancellationToken);
-        var additions = await store.AdditionsAsync([row.Id], cancellationToken);
-        var recipe = JsonParser.Default.Parse<Recipe>(row.RecipeBody);
-        var setup = JsonParser.Default.Parse<CreateBatchRequest>(row.Setup);
-        var chemistry = await BatchChemistry.LoadAsync(recipe, setup.Air, reagents, cancellationToken);
-        return chemistry.AsMade(row.Id, JsonParser.Default.Parse<DispensingPlan>(row.Plan), [.. additions.Select(BatchMapping.ToContract)], recipe.Spec);
+        var head = await store.HeadAsync(batchId, cancellationToken) ?? throw ApiException.NotFound("batchId", batchId, "batch");
+        Addition[] additions = [.. (await store.AdditionsAsync([head.Id], cancellationToken)).Select(BatchMapping.ToContract)];
+        var basis = await plans.BasisAsync(head.Id, cancellationToken);
+        return AsMadeMapping.ToContract(head.Id, basis.AsMade(additions), StepsDone(additions));
     }
 
-    private static RecordAdditionResponse Replay(AdditionRow earlier, string contentHash)
+    private static RecordAdditionResponse Response(
+        Addition addition, string batchId, BatchBasis basis, IReadOnlyList<Addition> all, BatchOutlook outlook, long revision)
+    {
+        var response = new RecordAdditionResponse
+        {
+            Addition = addition,
+            AsMade = AsMadeMapping.ToContract(batchId, basis.AsMade(all), StepsDone(all)),
+            PredictedFinal = CompositionMapping.ToContract(outlook.Predicted),
+            Replanned = outlook.Replanned,
+            PlanRevision = (int)revision,
+            PredictedWithinSpec = outlook.WithinSpec,
+            ScaleFactor = outlook.ScaleFactor,
+        };
+        response.RemainingSteps.AddRange(outlook.RemainingSteps(all));
+        response.PredictedDeviations.AddRange(outlook.Deviations.Select(AsMadeMapping.ToContract));
+        response.Warnings.AddRange(outlook.Warnings);
+        return response;
+    }
+
+    private static int StepsDone(IEnumerable<Addition> additions) => additions.Select(a => a.StepIndex).Distinct().Count();
+
+    private async Task<RecordAdditionResponse> ReplayAsync(AdditionRow earlier, string contentHash, CancellationToken cancellationToken)
     {
         if (earlier.ContentHash != contentHash)
         {
@@ -98,7 +133,7 @@ public sealed class AdditionRecorder(BatchLedger ledger, BatchStore store, Reage
                 "this addition id was already recorded with other content; use a new id for a new addition");
         }
 
-        var response = JsonParser.Default.Parse<RecordAdditionResponse>(earlier.Response);
+        var response = JsonParser.Default.Parse<RecordAdditionResponse>(await store.ResponseAsync(earlier.BatchId, earlier.AdditionId, cancellationToken));
         response.Replayed = true;
         return response;
     }

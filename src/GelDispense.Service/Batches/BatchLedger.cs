@@ -65,7 +65,7 @@ public sealed class BatchLedger(BatchStore store, BatchEventSignal signal, TimeP
         for (var attempt = 0; ; attempt++)
         {
             var row = await FindAsync(id, "id", cancellationToken);
-            RequireInProgress(row, "id");
+            RequireInProgress(row.Id, row.Status, "id");
             var at = time.GetUtcNow();
             var body = JsonFormatter.Default.Format(new BatchEvent { BatchId = row.Id, Type = type, OccurredAt = Timestamp.FromDateTimeOffset(at), Status = status });
             var outcome = await store.TrySetStatusAsync(row.Id, row.Version, BatchMapping.Stored(status), reason, type.ToString(), body, at, cancellationToken);
@@ -104,12 +104,12 @@ public sealed class BatchLedger(BatchStore store, BatchEventSignal signal, TimeP
     public async Task<IReadOnlyList<BatchEvent>> EventsAsync(string batchId, long afterSequence, CancellationToken cancellationToken) =>
         [.. (await store.EventsAsync(batchId, afterSequence, cancellationToken)).Select(BatchMapping.ToContract)];
 
-    public static void RequireInProgress(BatchRow row, string field)
+    public static void RequireInProgress(string batchId, string storedStatus, string field)
     {
-        var status = BatchMapping.Status(row.Status);
+        var status = BatchMapping.Status(storedStatus);
         if (status != BatchStatus.InProgress)
         {
-            throw ApiException.Conflict(field, row.Id, $"the batch is {status.ToString().ToLowerInvariant()}; it accepts no more changes");
+            throw ApiException.Conflict(field, batchId, $"the batch is {status.ToString().ToLowerInvariant()}; it accepts no more changes");
         }
     }
 

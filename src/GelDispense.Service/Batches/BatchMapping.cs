@@ -35,6 +35,7 @@ public static class BatchMapping
             AbortReason = row.AbortReason,
             Version = row.Version,
             LastEventSequence = row.LastEventSeq,
+            PlanRevision = (int)row.PlanRevision,
         };
         batch.Steps.AddRange(plan.Steps);
         batch.Additions.AddRange(additions.OrderBy(a => a.Ordinal).Select(ToContract));
@@ -52,6 +53,7 @@ public static class BatchMapping
         TrueMassG = row.TrueMassG,
         WithinWindow = row.WithinWindow,
         RecordedAt = Timestamp.FromDateTimeOffset(TimeText.Parse(row.RecordedAt)),
+        PlanRevision = (int)row.PlanRevision,
     };
 
     public static BatchEvent ToContract(EventRow row)

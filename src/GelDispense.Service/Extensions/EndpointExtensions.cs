@@ -21,6 +21,7 @@ public static class EndpointExtensions
         app.MapGrpcService<PlanApi>();
         app.MapGrpcService<ReagentApi>();
         app.MapGrpcService<BatchApi>();
+        app.MapGrpcService<ProbeApi>();
         app.MapGrpcReflectionService();
         app.MapGrpcHealthChecksService();
         app.MapHealthChecks("/healthz");

@@ -31,6 +31,7 @@ public static class ServiceCollectionExtensions
         services.AddSingleton<Planner>();
         services.AddSingleton<BatchEventSignal>();
         services.AddSingleton<BatchLedger>();
+        services.AddSingleton<BatchPlanCache>();
         services.AddSingleton<AdditionRecorder>();
         services.AddScoped<RequestLog>();
         return services;

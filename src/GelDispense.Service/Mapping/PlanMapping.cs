@@ -34,6 +34,8 @@ public static class PlanMapping
             Method = step.Method == Chem.DispensingMethod.Pipette ? Contract.DispensingMethod.Pipette : Contract.DispensingMethod.Balance,
             TargetMassG = step.TargetMassG,
             ToleranceG = step.ToleranceG,
+            AcceptanceG = step.AcceptanceG,
+            Done = step.Done,
             TargetReadingG = step.TargetReadingG,
             CumulativeReadingG = step.CumulativeReadingG,
             Feasible = step.Feasible,

@@ -17,5 +17,8 @@ public sealed class AdditionRow
     public string RecordedAt { get; init; } = "";
     /// <summary>Hash of what the station sent; a replay with another hash is a conflict.</summary>
     public string ContentHash { get; init; } = "";
+    /// <summary>Written with the addition; bulk reads leave it empty (<see cref="BatchStore.ResponseAsync"/> reads it).</summary>
     public string Response { get; init; } = "";
+    /// <summary>The plan revision the addition was judged against.</summary>
+    public long PlanRevision { get; init; }
 }

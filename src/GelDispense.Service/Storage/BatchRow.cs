@@ -13,8 +13,11 @@ public sealed class BatchRow
     public string RecipeBody { get; init; } = "";
     /// <summary>The <c>CreateBatchRequest</c> without its recipe: station, devices, air.</summary>
     public string Setup { get; init; } = "";
-    /// <summary>The current <c>DispensingPlan</c>, re-planned after out-of-window additions.</summary>
+    /// <summary>The <c>DispensingPlan</c> in force: revision <see cref="PlanRevision"/>, re-planned after out-of-window additions.</summary>
     public string Plan { get; init; } = "";
+    public long PlanRevision { get; init; }
+    /// <summary>Final batch size of the plan in force relative to the batch as first planned (1 for revision 0).</summary>
+    public double ScaleFactor { get; init; }
     public string AbortReason { get; init; } = "";
     public string CreatedAt { get; init; } = "";
     public string UpdatedAt { get; init; } = "";

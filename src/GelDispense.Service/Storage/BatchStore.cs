@@ -12,13 +12,16 @@ public sealed class BatchStore(IDatabase database)
 {
     private const string SelectBatch = """
         SELECT b.id, b.station_id, b.status, b.recipe_revision_id, r.name AS recipe_name, r.revision AS recipe_revision,
-               r.body AS recipe_body, b.setup, b.plan, b.abort_reason, b.created_at, b.updated_at, b.version, b.last_event_seq
+               r.body AS recipe_body, b.setup, COALESCE(p.plan, b.plan) AS plan, b.plan_revision,
+               COALESCE(p.scale_factor, 1.0) AS scale_factor, b.abort_reason, b.created_at, b.updated_at, b.version, b.last_event_seq
         FROM batches b JOIN recipe_revisions r ON r.id = b.recipe_revision_id
+        LEFT JOIN plan_revisions p ON p.batch_id = b.id AND p.revision = b.plan_revision
         """;
 
+    // Without the stored response: only a replay needs it (ResponseAsync), and it is the largest column by far.
     private const string SelectAddition = """
         SELECT batch_id, addition_id, ordinal, step_index, reading_g, stable, source, lot_id, true_mass_g,
-               within_window, recorded_at, content_hash, response
+               within_window, recorded_at, content_hash, plan_revision
         FROM additions
         """;
 
@@ -53,6 +56,41 @@ public sealed class BatchStore(IDatabase database)
         return await connection.QuerySingleOrDefaultAsync<BatchRow>($"{SelectBatch} WHERE b.id = @id", new { id });
     }
 
+    /// <summary>What an addition needs to know of its batch before anything else: status, version and plan revision.</summary>
+    public async Task<BatchHead?> HeadAsync(string id, CancellationToken cancellationToken)
+    {
+        await using var connection = await database.OpenAsync(cancellationToken);
+        return await connection.QuerySingleOrDefaultAsync<BatchHead>(
+            "SELECT id, status, version, plan_revision FROM batches WHERE id = @id", new { id });
+    }
+
+    /// <summary>What never changes about a batch: its recipe revision, its setup and its first plan (revision 0).</summary>
+    public async Task<BatchOrigin?> OriginAsync(string id, CancellationToken cancellationToken)
+    {
+        await using var connection = await database.OpenAsync(cancellationToken);
+        return await connection.QuerySingleOrDefaultAsync<BatchOrigin>("""
+            SELECT b.id, r.body AS recipe_body, b.setup, b.plan AS first_plan
+            FROM batches b JOIN recipe_revisions r ON r.id = b.recipe_revision_id WHERE b.id = @id
+            """, new { id });
+    }
+
+    /// <summary>A stored re-plan of a batch (revisions from 1; revision 0 is the batch's first plan).</summary>
+    public async Task<PlanRevisionRow?> PlanRevisionAsync(string batchId, long revision, CancellationToken cancellationToken)
+    {
+        await using var connection = await database.OpenAsync(cancellationToken);
+        return await connection.QuerySingleOrDefaultAsync<PlanRevisionRow>(
+            "SELECT batch_id, revision, plan, scale_factor, cause_addition_id, created_at FROM plan_revisions WHERE batch_id = @batchId AND revision = @revision",
+            new { batchId, revision });
+    }
+
+    /// <summary>The response stored with an addition, which a replay of it returns unchanged.</summary>
+    public async Task<string> ResponseAsync(string batchId, string additionId, CancellationToken cancellationToken)
+    {
+        await using var connection = await database.OpenAsync(cancellationToken);
+        return await connection.QuerySingleAsync<string>(
+            "SELECT response FROM additions WHERE batch_id = @batchId AND addition_id = @additionId", new { batchId, additionId });
+    }
+
     public async Task<IReadOnlyList<AdditionRow>> AdditionsAsync(IReadOnlyCollection<string> batchIds, CancellationToken cancellationToken)
     {
         if (batchIds.Count == 0)
@@ -61,27 +99,33 @@ public sealed class BatchStore(IDatabase database)
         }
 
         await using var connection = await database.OpenAsync(cancellationToken);
-        // Dapper passes a list to Npgsql as one array parameter, and expands it into (@p1, @p2, …) elsewhere.
-        var filter = database.Engine == "Postgres" ? "batch_id = ANY(@batchIds)" : "batch_id IN @batchIds";
         var rows = await connection.QueryAsync<AdditionRow>(
-            $"{SelectAddition} WHERE {filter} ORDER BY batch_id, ordinal", new { batchIds = batchIds.ToArray() });
+            $"{SelectAddition} WHERE {database.AnyOf("batch_id", "batchIds")} ORDER BY batch_id, ordinal", new { batchIds = batchIds.ToArray() });
         return [.. rows];
     }
 
-    /// <summary>Appends an addition if the batch is still at <paramref name="expectedVersion"/>; <paramref name="plan"/> replaces the stored plan when given.</summary>
+    /// <summary>
+    /// Appends an addition if the batch is still at <paramref name="expectedVersion"/>. A <paramref name="replan"/>
+    /// is appended as the batch's next plan revision and put in force; earlier revisions are never touched.
+    /// </summary>
     public Task<WriteOutcome> TryAppendAdditionAsync(
-        AdditionRow addition, long expectedVersion, string? plan, string eventBody, DateTimeOffset at, CancellationToken cancellationToken) =>
+        AdditionRow addition, long expectedVersion, PlanRevisionRow? replan, string eventBody, DateTimeOffset at, CancellationToken cancellationToken) =>
         WriteVersionedAsync(addition.BatchId, expectedVersion, at, "ADDITION_RECORDED", eventBody, cancellationToken, async (connection, transaction) =>
         {
             await connection.ExecuteAsync("""
                 INSERT INTO additions (batch_id, addition_id, ordinal, step_index, reading_g, stable, source, lot_id, true_mass_g,
-                                       within_window, recorded_at, content_hash, response)
+                                       within_window, recorded_at, content_hash, response, plan_revision)
                 VALUES (@BatchId, @AdditionId, @Ordinal, @StepIndex, @ReadingG, @Stable, @Source, @LotId, @TrueMassG,
-                        @WithinWindow, @RecordedAt, @ContentHash, @Response)
+                        @WithinWindow, @RecordedAt, @ContentHash, @Response, @PlanRevision)
                 """, addition, transaction);
-            if (plan is not null)
+            if (replan is not null)
             {
-                await connection.ExecuteAsync("UPDATE batches SET plan = @plan WHERE id = @id", new { plan, id = addition.BatchId }, transaction);
+                await connection.ExecuteAsync("""
+                    INSERT INTO plan_revisions (batch_id, revision, plan, scale_factor, cause_addition_id, created_at)
+                    VALUES (@BatchId, @Revision, @Plan, @ScaleFactor, @CauseAdditionId, @CreatedAt)
+                    """, replan, transaction);
+                await connection.ExecuteAsync(
+                    "UPDATE batches SET plan_revision = @Revision WHERE id = @BatchId", replan, transaction);
             }
         });
 

@@ -25,6 +25,8 @@ public abstract class Database : IDatabase
 
     public abstract bool IsConflict(DbException exception);
 
+    public abstract string AnyOf(string column, string parameter);
+
     /// <summary>An open connection without waiting for migrations (the migration runner's own).</summary>
     public abstract Task<DbConnection> OpenRawAsync(CancellationToken cancellationToken);
 }

@@ -14,6 +14,9 @@ public interface IDatabase
     /// <summary>An open connection on a migrated schema.</summary>
     Task<DbConnection> OpenAsync(CancellationToken cancellationToken);
 
+    /// <summary>SQL for "<paramref name="column"/> is one of the list parameter <paramref name="parameter"/>" (a Dapper list).</summary>
+    string AnyOf(string column, string parameter);
+
     /// <summary>True when a write conflicted with a concurrent one and should be retried from a fresh read.</summary>
     bool IsConflict(DbException exception);
 }

@@ -16,6 +16,9 @@ public sealed class PostgresDatabase(string connectionString, TimeProvider time)
     public override async Task<DbConnection> OpenRawAsync(CancellationToken cancellationToken) =>
         await _dataSource.OpenConnectionAsync(cancellationToken);
 
+    // Dapper passes a list to Npgsql as one array parameter.
+    public override string AnyOf(string column, string parameter) => $"{column} = ANY(@{parameter})";
+
     // 23505 unique_violation, 40001 serialization_failure, 40P01 deadlock_detected: all mean "read again and retry".
     public override bool IsConflict(DbException exception) =>
         exception is PostgresException { SqlState: "23505" or "40001" or "40P01" };

@@ -18,6 +18,14 @@ public sealed class ReagentStore(IDatabase database)
         return [.. await connection.QueryAsync<string>("SELECT body FROM reagents ORDER BY id")];
     }
 
+    /// <summary>The stored reagents among <paramref name="ids"/>; ids without a stored reagent are left out.</summary>
+    public async Task<IReadOnlyList<string>> ReagentBodiesAsync(IReadOnlyCollection<string> ids, CancellationToken cancellationToken)
+    {
+        await using var connection = await database.OpenAsync(cancellationToken);
+        return [.. await connection.QueryAsync<string>(
+            $"SELECT body FROM reagents WHERE {database.AnyOf("id", "ids")} ORDER BY id", new { ids = ids.ToArray() })];
+    }
+
     public async Task<string?> ReagentBodyAsync(string id, CancellationToken cancellationToken)
     {
         await using var connection = await database.OpenAsync(cancellationToken);

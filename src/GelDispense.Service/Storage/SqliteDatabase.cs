@@ -11,6 +11,7 @@ namespace GelDispense.Service.Storage;
 public sealed class SqliteDatabase : Database
 {
     private readonly string _connectionString;
+    private int _walSet;
 
     public SqliteDatabase(string connectionString, TimeProvider time)
         : base(time)
@@ -37,10 +38,22 @@ public sealed class SqliteDatabase : Database
         var connection = new SqliteConnection(_connectionString);
         await connection.OpenAsync(cancellationToken);
         await using var pragma = connection.CreateCommand();
-        pragma.CommandText = "PRAGMA journal_mode = WAL; PRAGMA synchronous = NORMAL;";
+        // WAL is stored in the database file, so the first connection of the process sets it for all; switching the
+        // journal mode takes a lock and reads the file header, which every open used to pay. synchronous is per
+        // connection and only flips a flag (NORMAL: in WAL mode a commit no longer waits for fsync).
+        var walSet = Volatile.Read(ref _walSet) == 1;
+        pragma.CommandText = walSet ? "PRAGMA synchronous = NORMAL;" : "PRAGMA journal_mode = WAL; PRAGMA synchronous = NORMAL;";
         await pragma.ExecuteNonQueryAsync(cancellationToken);
+        if (!walSet)
+        {
+            Volatile.Write(ref _walSet, 1);
+        }
+
         return connection;
     }
+
+    // Dapper expands a list parameter into (@p1, @p2, …).
+    public override string AnyOf(string column, string parameter) => $"{column} IN @{parameter}";
 
     // SQLITE_CONSTRAINT (19): a unique key taken by a concurrent writer between our read and our write.
     public override bool IsConflict(DbException exception) => exception is SqliteException { SqliteErrorCode: 19 };
