@@ -11,7 +11,11 @@ public sealed class SwaggerExtensionsTests(ApiHosts hosts)
 {
     /// <summary>Every google.api.http rule in the contract, as OpenAPI writes the path (snake_case parameters in camelCase).</summary>
     private static IEnumerable<(string Method, string Path)> ContractRoutes() =>
-        new[] { CompositionServiceReflection.Descriptor, PlanServiceReflection.Descriptor, ReagentServiceReflection.Descriptor, BatchServiceReflection.Descriptor }
+        new[]
+        {
+            CompositionServiceReflection.Descriptor, PlanServiceReflection.Descriptor, ReagentServiceReflection.Descriptor,
+            BatchServiceReflection.Descriptor, ProbeServiceReflection.Descriptor,
+        }
             .SelectMany(f => f.Services).SelectMany(s => s.Methods)
             .Select(m => m.GetOptions()?.GetExtension(AnnotationsExtensions.Http))
             .OfType<HttpRule>()

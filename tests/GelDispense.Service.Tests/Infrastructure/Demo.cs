@@ -17,6 +17,20 @@ public static class Demo
          "spec":{"hydrolysisRatio":{"value":4,"tolerancePct":2}}}
         """;
 
+    /// <summary>
+    /// The same sol held to an oxide density as well: ethanol is the free solvent the planner solves for
+    /// 0.080 g/mL SiO2 ± 3 %, with R = 4 ± 2 %.
+    /// </summary>
+    public const string DensityRecipe = """
+        {"name":"silica-r4-d80","components":[
+          {"reagentId":"teos","amount":{"value":1,"unit":"ratio"}},
+          {"reagentId":"ethanol","amount":{"value":4,"unit":"ratio"}},
+          {"reagentId":"water","amount":{"value":4,"unit":"ratio"}}],
+         "scale":{"precursorMol":0.1},
+         "spec":{"hydrolysisRatio":{"value":4,"tolerancePct":2},
+                 "oxideDensityGPerMl":{"value":0.08,"tolerancePct":3},"freeSolventIds":["ethanol"]}}
+        """;
+
     public const string Balance = """{"id":"bal-7","readabilityG":0.001,"capacityG":220,"repeatabilityG":0.0008}""";
 
     public static StringContent Json(string json) => new(json, Encoding.UTF8, "application/json");
@@ -38,8 +52,8 @@ public static class Demo
     }
 
     /// <summary>Starts a demo batch over REST and returns it.</summary>
-    public static Task<JsonNode> StartBatchAsync(HttpClient client, string stationId = "bench-2") =>
-        PostAsync(client, "/v1/batches", $$"""{"stationId":"{{stationId}}","recipe":{{Recipe}},"balance":{{Balance}}}""");
+    public static Task<JsonNode> StartBatchAsync(HttpClient client, string stationId = "bench-2", string recipe = Recipe) =>
+        PostAsync(client, "/v1/batches", $$"""{"stationId":"{{stationId}}","recipe":{{recipe}},"balance":{{Balance}}}""");
 
     public static string Addition(string additionId, int stepIndex, double readingG, bool stable = true) =>
         JsonSerializer.Serialize(new { additionId, stepIndex, readingG, stable });

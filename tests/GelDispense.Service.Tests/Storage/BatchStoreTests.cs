@@ -1,0 +1,47 @@
+using Dapper;
+using GelDispense.Service.Storage;
+using GelDispense.Service.Tests.Infrastructure;
+using Microsoft.Extensions.DependencyInjection;
+
+namespace GelDispense.Service.Tests.Storage;
+
+[Collection(ApiCollection.Name)]
+public sealed class BatchStoreTests(ApiHosts hosts)
+{
+    [Theory, SqliteEngine, PostgresEngine]
+    public async Task Re_plans_are_appended_as_revisions_and_the_first_plan_is_never_rewritten(string engine)
+    {
+        var host = await hosts.ForAsync(engine);
+        var client = host.CreateClient();
+        var batch = await Demo.StartBatchAsync(client);
+        var id = (string)batch["id"]!;
+        var database = host.Services.GetRequiredService<IDatabase>();
+        var firstPlan = await FirstPlanAsync(database, id);
+
+        var teosReading = (double)batch["steps"]![0]!["targetReadingG"]!;
+        await Demo.PostAsync(client, $"/v1/batches/{id}/additions", Demo.Addition("h1", 0, teosReading * 1.03));
+        var afterFirst = await Demo.GetAsync(client, $"/v1/batches/{id}");
+        var ethanolReading = (double)afterFirst["steps"]![1]!["targetReadingG"]!;
+        await Demo.PostAsync(client, $"/v1/batches/{id}/additions", Demo.Addition("h2", 1, ethanolReading * 1.10));
+
+        await using var connection = await database.OpenAsync(CancellationToken.None);
+        var revisions = (await connection.QueryAsync<(long Revision, string Cause, string Plan)>(
+            "SELECT revision, cause_addition_id, plan FROM plan_revisions WHERE batch_id = @id ORDER BY revision", new { id })).ToArray();
+        Assert.Equal([(1L, "h1"), (2L, "h2")], revisions.Select(r => (r.Revision, r.Cause)));
+        Assert.Equal(firstPlan, await FirstPlanAsync(database, id));
+        var judged = (await connection.QueryAsync<(string AdditionId, long PlanRevision)>(
+            "SELECT addition_id, plan_revision FROM additions WHERE batch_id = @id ORDER BY ordinal", new { id })).ToArray();
+        Assert.Equal([("h1", 0L), ("h2", 1L)], judged);
+        var current = await Demo.GetAsync(client, $"/v1/batches/{id}");
+        Assert.Equal(2, (int)current["planRevision"]!);
+        var latest = Google.Protobuf.JsonParser.Default.Parse<Contracts.V1.DispensingPlan>(revisions[1].Plan);
+        Assert.Equal(latest.Steps[2].TargetMassG, (double)current["steps"]![2]!["targetMassG"]!, 12);
+        Assert.NotEqual((double)batch["steps"]![2]!["targetMassG"]!, latest.Steps[2].TargetMassG, 6);
+    }
+
+    private static async Task<string> FirstPlanAsync(IDatabase database, string id)
+    {
+        await using var connection = await database.OpenAsync(CancellationToken.None);
+        return await connection.QuerySingleAsync<string>("SELECT plan FROM batches WHERE id = @id", new { id });
+    }
+}
