@@ -40,13 +40,16 @@ public static class PipetteCapability
     }
 
     /// <summary>Whether the volume lies in the pipette's useful range (min to nominal).</summary>
-    public static bool CanDeliver(PipetteProfile p, double volumeUl) => CanDeliver(p, volumeUl, out _);
+    public static bool CanDeliver(PipetteProfile p, double volumeUl)
+    {
+        ArgumentNullException.ThrowIfNull(p);
+        return double.IsFinite(volumeUl) && volumeUl >= p.MinVolumeUl && volumeUl <= p.NominalVolumeUl;
+    }
 
     /// <summary>Whether the volume lies in the useful range; <paramref name="reason"/> says why not (empty when it does).</summary>
     public static bool CanDeliver(PipetteProfile p, double volumeUl, out string reason)
     {
-        ArgumentNullException.ThrowIfNull(p);
-        reason = !double.IsFinite(volumeUl) || volumeUl < p.MinVolumeUl || volumeUl > p.NominalVolumeUl
+        reason = !CanDeliver(p, volumeUl)
             ? string.Create(CultureInfo.InvariantCulture,
                 $"{volumeUl} µL is outside the useful range {p.MinVolumeUl}–{p.NominalVolumeUl} µL of pipette {p.Id}")
             : string.Empty;

@@ -40,17 +40,6 @@ internal readonly record struct StepDevice(DispensingMethod Method, double Error
 
     private static string F(double v) => v.ToString("0.#####", System.Globalization.CultureInfo.InvariantCulture);
 
-    public static StepDevice ByPipette(PipetteProfile pipette, double volumeMl, double densityGPerMl)
-    {
-        var volumeUl = volumeMl * 1000;
-        if (!PipetteCapability.CanDeliver(pipette, volumeUl, out var reason))
-        {
-            return new StepDevice(DispensingMethod.Pipette, double.PositiveInfinity, false, reason);
-        }
-
-        return new StepDevice(DispensingMethod.Pipette, PipetteCapability.ExpectedErrorUl(pipette, volumeUl) / 1000 * densityGPerMl, true, null);
-    }
-
     /// <summary>
     /// Routes a step: to the pipette when the reagent is marked volumetric, or when the balance cannot weigh
     /// it or holds it less well than the pipette; otherwise to the balance.
@@ -58,17 +47,15 @@ internal readonly record struct StepDevice(DispensingMethod Method, double Error
     public static StepDevice Choose(PlanRequest request, bool volumetric, bool liquid, double netG, double grossG, double volumeMl, double densityGPerMl, double windowG)
     {
         var balance = OnBalance(request.Balance, netG, grossG);
-        if (request.Pipette is not { } pipette || !liquid)
+        var volumeUl = volumeMl * 1000;
+
+        // Outside its useful range the pipette is no candidate and the step stays on the balance, so the reason is never worded.
+        if (request.Pipette is not { } pipette || !liquid || !PipetteCapability.CanDeliver(pipette, volumeUl))
         {
             return balance;
         }
 
-        var byPipette = ByPipette(pipette, volumeMl, densityGPerMl);
-        if (!byPipette.Usable)
-        {
-            return balance;
-        }
-
+        var byPipette = new StepDevice(DispensingMethod.Pipette, PipetteCapability.ExpectedErrorUl(pipette, volumeUl) / 1000 * densityGPerMl, true, null);
         var balanceFails = !balance.Usable || balance.ErrorG > windowG;
         return volumetric || (balanceFails && byPipette.ErrorG < balance.ErrorG) ? byPipette : balance;
     }
