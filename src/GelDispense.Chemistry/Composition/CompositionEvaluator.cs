@@ -71,36 +71,66 @@ public static class CompositionEvaluator
 
     private static OxideShare[] OxideShares(Formulation f, CompositionTotals totals)
     {
-        var precursors = f.Lines.Where(l => l.Reagent.OxideGPerG > 0).ToArray();
-        var metalMol = precursors.Select(l => f.MassesG[l.Index] * l.Reagent.PrecursorMolPerG * l.Reagent.Definition.Precursor!.OxidePerMol
-            * MetalAtoms(l.Reagent)).ToArray();
-        var totalMetal = metalMol.Sum();
-        return [.. precursors.Select((l, k) =>
+        var lines = f.Lines;
+        var count = 0;
+        var totalMetal = 0.0;
+        for (var i = 0; i < lines.Count; i++)
         {
-            var oxideG = f.MassesG[l.Index] * l.Reagent.OxideGPerG;
-            return new OxideShare(l.ReagentId, l.Reagent.OxideFormula!.Text, oxideG,
-                totals.OxideG > 0 ? oxideG / totals.OxideG : 0, totalMetal > 0 ? metalMol[k] / totalMetal : 0);
-        })];
+            if (lines[i].Reagent.OxideGPerG > 0)
+            {
+                count++;
+                totalMetal += MetalMol(f, lines[i]);
+            }
+        }
+
+        var shares = new OxideShare[count];
+        for (int i = 0, k = 0; i < lines.Count; i++)
+        {
+            var l = lines[i];
+            if (l.Reagent.OxideGPerG > 0)
+            {
+                var oxideG = f.MassesG[i] * l.Reagent.OxideGPerG;
+                shares[k++] = new OxideShare(l.ReagentId, l.Reagent.OxideFormula!.Text, oxideG,
+                    totals.OxideG > 0 ? oxideG / totals.OxideG : 0, totalMetal > 0 ? MetalMol(f, l) / totalMetal : 0);
+            }
+        }
+
+        return shares;
     }
 
-    /// <summary>Network-forming atoms per oxide unit: everything but O and the organic C and H.</summary>
-    private static double MetalAtoms(PreparedReagent r) =>
-        r.OxideFormula!.Atoms.Where(a => a.Key is not ("O" or "C" or "H")).Sum(a => a.Value);
+    private static double MetalMol(Formulation f, FormulationLine l) =>
+        f.MassesG[l.Index] * l.Reagent.PrecursorMolPerG * l.Reagent.Definition.Precursor!.OxidePerMol * l.Reagent.NetworkAtomsPerOxideUnit;
 
+    /// <summary>Each stage in ascending order, counting its own lines and those of earlier stages.</summary>
     private static StageSummary[] StageSummaries(Formulation f)
     {
-        var stages = f.Lines.Select(l => l.Stage).Distinct().Order().ToArray();
-        var masses = new double[f.Lines.Count];
-        return [.. stages.Select(stage =>
+        var lines = f.Lines;
+        Span<int> stages = stackalloc int[lines.Count];
+        var count = 0;
+        for (var i = 0; i < lines.Count; i++)
+        {
+            if (!stages[..count].Contains(lines[i].Stage))
+            {
+                stages[count++] = lines[i].Stage;
+            }
+        }
+
+        stages = stages[..count];
+        stages.Sort();
+        Span<double> masses = stackalloc double[lines.Count];
+        var summaries = new StageSummary[count];
+        for (var k = 0; k < count; k++)
         {
             for (var i = 0; i < masses.Length; i++)
             {
-                masses[i] = f.Lines[i].Stage <= stage ? f.MassesG[i] : 0;
+                masses[i] = lines[i].Stage <= stages[k] ? f.MassesG[i] : 0;
             }
 
-            var t = CompositionTotals.From(f.Lines, masses);
-            return new StageSummary(stage, t.VolumeMl, t.PrecursorMol, t.WaterMol,
+            var t = CompositionTotals.From(lines, masses);
+            summaries[k] = new StageSummary(stages[k], t.VolumeMl, t.PrecursorMol, t.WaterMol,
                 t.PrecursorMol > 0 ? t.HydrolysisRatio : 0, t.VolumeMl > 0 ? t.OxideDensityGPerMl : 0, t.CatalystMolarityMolPerL);
-        })];
+        }
+
+        return summaries;
     }
 }

@@ -15,20 +15,21 @@ internal static class CompositionWarnings
         var regime = CompositionEvaluator.RegimeOf(totals);
         if (regime == HydrolysisRegime.BelowStoichiometric)
         {
-            warnings.Add($"R = {F(totals.HydrolysisRatio)} is below g/2 = {F(g / 2)}: there is not enough water to convert all alkoxide to oxide (normal for the first stage of a two-step sol only).");
+            warnings.Add(string.Create(CultureInfo.InvariantCulture, $"R = {totals.HydrolysisRatio:0.####} is below g/2 = {g / 2:0.####}: there is not enough water to convert all alkoxide to oxide (normal for the first stage of a two-step sol only)."));
         }
         else if (regime == HydrolysisRegime.RelyingOnCondensationWater)
         {
-            warnings.Add($"R = {F(totals.HydrolysisRatio)} lies between g/2 = {F(g / 2)} and g = {F(g)}: full conversion relies on water released by condensation.");
+            warnings.Add(string.Create(CultureInfo.InvariantCulture, $"R = {totals.HydrolysisRatio:0.####} lies between g/2 = {g / 2:0.####} and g = {g:0.####}: full conversion relies on water released by condensation."));
         }
 
-        foreach (var line in f.Lines)
+        for (var i = 0; i < f.Lines.Count; i++)
         {
+            var line = f.Lines[i];
             var r = line.Reagent;
             var water = f.MassesG[line.Index] * r.WaterMolPerG;
             if (water > 0 && r.Definition.Role != Reagents.ReagentRole.Water && totals.PrecursorMol > 0)
             {
-                warnings.Add($"Water in '{r.Id}' adds {F(water / totals.PrecursorMol)} to R ({F(water * 18.015)} g of water).");
+                warnings.Add(string.Create(CultureInfo.InvariantCulture, $"Water in '{r.Id}' adds {water / totals.PrecursorMol:0.####} to R ({water * 18.015:0.####} g of water)."));
             }
 
             if (f.MassesG[line.Index] == 0)
@@ -39,6 +40,4 @@ internal static class CompositionWarnings
 
         return warnings;
     }
-
-    private static string F(double v) => v.ToString("0.####", CultureInfo.InvariantCulture);
 }

@@ -74,6 +74,11 @@ public sealed class Formulation
 
     private static IReagentLookup PrepareInline(Recipe recipe, IReagentLookup catalog, List<InputError> errors)
     {
+        if (recipe.InlineReagents.Count == 0)
+        {
+            return catalog;
+        }
+
         var inline = new List<PreparedReagent>();
         for (var i = 0; i < recipe.InlineReagents.Count; i++)
         {
@@ -113,17 +118,16 @@ public sealed class Formulation
         for (var i = 0; i < lines.Length; i++)
         {
             var c = recipe.Components[i];
-            var field = $"recipe.components[{i}]";
             var reagent = c.ReagentId is null ? null : lookup.Find(c.ReagentId);
             if (reagent is null)
             {
-                errors.Add(new($"{field}.reagentId", c.ReagentId ?? "", "no such reagent in the catalog or the recipe's inline reagents"));
+                errors.Add(new(ComponentField(i, "reagentId"), c.ReagentId ?? "", "no such reagent in the catalog or the recipe's inline reagents"));
             }
 
-            RecipeAmounts.Check(c.Amount, $"{field}.amount", errors);
+            RecipeAmounts.Check(c.Amount, i, errors);
             if (c.Stage < 1)
             {
-                errors.Add(new($"{field}.stage", c.Stage.ToString(CultureInfo.InvariantCulture), "stages are numbered from 1"));
+                errors.Add(new(ComponentField(i, "stage"), c.Stage.ToString(CultureInfo.InvariantCulture), "stages are numbered from 1"));
             }
 
             if (reagent is not null && double.IsFinite(recipe.TemperatureC) && !reagent.Definition.Density.Covers(recipe.TemperatureC))
@@ -147,4 +151,8 @@ public sealed class Formulation
     }
 
     internal static string Text(double v) => v.ToString("R", CultureInfo.InvariantCulture);
+
+    /// <summary>"recipe.components[2].stage": worded only for an error, since every evaluation resolves every component.</summary>
+    internal static string ComponentField(int index, string leaf) =>
+        string.Create(CultureInfo.InvariantCulture, $"recipe.components[{index}].{leaf}");
 }

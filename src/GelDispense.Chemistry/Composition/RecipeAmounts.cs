@@ -8,8 +8,15 @@ internal static class RecipeAmounts
     /// <summary>Amounts above this (in any unit) are typing errors, not batches.</summary>
     private const double MaxValue = 1e7;
 
-    public static void Check(Amount amount, string field, List<InputError> errors)
+    public static void Check(Amount amount, int componentIndex, List<InputError> errors)
     {
+        // The usual case, settled before any field path is worded.
+        if (Enum.IsDefined(amount.Unit) && double.IsFinite(amount.Value) && amount.Value is >= 0 and <= MaxValue)
+        {
+            return;
+        }
+
+        var field = Formulation.ComponentField(componentIndex, "amount");
         if (!Enum.IsDefined(amount.Unit))
         {
             errors.Add(new($"{field}.unit", amount.Unit.ToString(), "unknown unit; use mol, mmol, g, mg, kg, mL, uL, L or ratio"));

@@ -47,6 +47,9 @@ public sealed class PreparedReagent
 
     public ChemicalFormula? OxideFormula { get; private init; }
 
+    /// <summary>Network-forming atoms per oxide unit: everything but O and the organic C and H (1 for SiO2, CH3SiO1.5 and AlO1.5).</summary>
+    internal double NetworkAtomsPerOxideUnit { get; private init; }
+
     internal ReagentHazards Hazards { get; private init; } = null!;
 
     /// <summary>Prepares a reagent or throws <see cref="InvalidInputException"/> listing every problem under <paramref name="field"/>.</summary>
@@ -129,6 +132,7 @@ public sealed class PreparedReagent
             AlcoholReleasedGPerG = precursor is null ? 0
                 : precursorPerG * reagent.Precursor!.HydrolysableGroups * precursor.Value.Alcohol.MolarMassGPerMol,
             OxideFormula = precursor?.Oxide,
+            NetworkAtomsPerOxideUnit = precursor?.Oxide.Atoms.Where(a => a.Key is not ("O" or "C" or "H")).Sum(a => a.Value) ?? 0,
             Hazards = ReagentHazards.Of(reagent),
         };
     }
