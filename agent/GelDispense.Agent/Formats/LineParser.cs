@@ -8,7 +8,7 @@ namespace GelDispense.Agent.Formats;
 /// The compiled, pure codec for one <see cref="LineFormat"/>: a line in, a reading or a failure with a reason out.
 /// Construction validates the format and names the offending field; parsing never throws.
 /// </summary>
-public sealed class LineParser
+public sealed partial class LineParser
 {
     // A user pattern with catastrophic backtracking must not freeze the agent on a noisy line. The limit is
     // wall-clock time, so it is generous: a busy machine must not turn a good line into a timeout.
@@ -22,6 +22,7 @@ public sealed class LineParser
     private readonly Regex? _overload;
     private readonly Regex? _underload;
     private readonly Regex? _error;
+    private readonly Regex? _anyMarker;
     private readonly int _valueGroup;
     private readonly int _signGroup;
     private readonly int _unitGroup;
@@ -36,6 +37,7 @@ public sealed class LineParser
         _overload = Compile(format.OverloadPattern, $"{fieldPath}.overloadPattern");
         _underload = Compile(format.UnderloadPattern, $"{fieldPath}.underloadPattern");
         _error = Compile(format.ErrorPattern, $"{fieldPath}.errorPattern");
+        _anyMarker = CombineMarkers(format);
         _valueGroup = _reading.GroupNumberFromName("value");
         _signGroup = _reading.GroupNumberFromName("sign");
         _unitGroup = _reading.GroupNumberFromName("unit");
@@ -57,6 +59,12 @@ public sealed class LineParser
 
         try
         {
+            // Most lines are readings: one combined check clears all three markers at once.
+            if (_anyMarker?.IsMatch(line) == false)
+            {
+                return ReadingFrom(line);
+            }
+
             if (_overload?.IsMatch(line) == true)
             {
                 return LineParseResult.Ok(BalanceReading.Marker(ReadingKind.Overload, line));
@@ -72,10 +80,7 @@ public sealed class LineParser
                 return LineParseResult.Ok(BalanceReading.Marker(ReadingKind.Error, line));
             }
 
-            var match = _reading.Match(line);
-            return match.Success
-                ? FromMatch(match, line)
-                : LineParseResult.Fail(ParseFailureReason.NoMatch, $"does not match format '{Format.Name}'", line);
+            return ReadingFrom(line);
         }
         catch (RegexMatchTimeoutException)
         {
@@ -93,6 +98,14 @@ public sealed class LineParser
         return line.NonTextBytes > 0
             ? LineParseResult.Fail(ParseFailureReason.NonText, $"{line.NonTextBytes} non-text byte(s) in line", line.Text)
             : Parse(line.Text);
+    }
+
+    private LineParseResult ReadingFrom(string line)
+    {
+        var match = _reading.Match(line);
+        return match.Success
+            ? FromMatch(match, line)
+            : LineParseResult.Fail(ParseFailureReason.NoMatch, $"does not match format '{Format.Name}'", line);
     }
 
     private LineParseResult FromMatch(Match match, string line)
@@ -121,6 +134,24 @@ public sealed class LineParser
             : null;
         return LineParseResult.Ok(new BalanceReading(valueG, stable, ReadingKind.Weight, line));
     }
+
+    /// <summary>
+    /// The marker patterns as one alternation, used only to rule all of them out in one pass. Left out when a
+    /// pattern has a backreference, whose group number would shift once the patterns are joined.
+    /// </summary>
+    private static Regex? CombineMarkers(LineFormat format)
+    {
+        string[] markers = [.. new[] { format.OverloadPattern, format.UnderloadPattern, format.ErrorPattern }.OfType<string>()];
+        if (markers.Length < 2 || markers.Any(m => BackReference().IsMatch(m)))
+        {
+            return null;
+        }
+
+        return new Regex(string.Join('|', markers.Select(m => $"(?:{m})")), RegexOptions.Compiled | RegexOptions.CultureInvariant, MatchTimeout);
+    }
+
+    [GeneratedRegex(@"\\(?:[1-9]|k<)")]
+    private static partial Regex BackReference();
 
     private static Regex? Compile(string? pattern, string field)
     {

@@ -75,4 +75,22 @@ public class LineParserTests
 
         Assert.Equal(ParseFailureReason.PatternTimeout, result.Failure!.Reason);
     }
+
+    [Fact]
+    public void Markers_with_backreferences_keep_their_meaning()
+    {
+        var parser = new LineParser(new LineFormat
+        {
+            Name = "echoed",
+            Pattern = @"^(?<value>\d+)$",
+            DefaultUnit = "g",
+            OverloadPattern = @"^(O)\1$",
+            ErrorPattern = @"^(E)\1$",
+        });
+
+        Assert.Equal(ReadingKind.Overload, parser.Parse("OO").Reading!.Kind);
+        Assert.Equal(ReadingKind.Error, parser.Parse("EE").Reading!.Kind);
+        Assert.Equal(12.0, parser.Parse("12").Reading!.ValueG);
+        Assert.False(parser.Parse("OE").IsReading);
+    }
 }
