@@ -20,7 +20,7 @@ public class StationConfigLoaderTests
             "readabilityG": 0.001,
           },
           "stability": { "mode": "software", "minReadings": 8, "bandG": 0.002, "windowS": 2 },
-          "pipette": { "name": "P1000 bay-3", "nominalVolumeUl": 1000, "minVolumeUl": 100 }
+          "pipette": { "name": "bay-3 1000 uL pipette", "nominalVolumeUl": 1000, "minVolumeUl": 100 }
         }
         """;
 

@@ -90,7 +90,7 @@ public class BuiltInFormatsTests
     [Theory]
     [InlineData("column", "= +   12.34")]
     [InlineData("column", "56 g")]
-    [InlineData("column", "S S      12.3456 g")]
+    [InlineData("column", "= =   12.3456 g")]
     [InlineData("column", "= 12.3456 g")]
     [InlineData("column", "")]
     [InlineData("keyed", "mass=12.3456,unit=g")]

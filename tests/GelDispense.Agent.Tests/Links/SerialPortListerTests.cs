@@ -14,7 +14,7 @@ public sealed class SerialPortListerTests : TempDirectoryTest
         }
 
         Directory.CreateDirectory(Path.Combine(Dir, "serial", "by-id"));
-        var byId = Path.Combine(Dir, "serial", "by-id", "usb-Acme_Bridge_1234-if00-port0");
+        var byId = Path.Combine(Dir, "serial", "by-id", "usb-bridge-0001-if00-port0");
         File.CreateSymbolicLink(byId, "../../ttyUSB0");
 
         var ports = SerialPortLister.List(Dir);
