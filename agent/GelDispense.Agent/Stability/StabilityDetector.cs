@@ -12,8 +12,6 @@ public sealed class StabilityDetector(StabilitySettings settings, TimeProvider t
     private readonly SoftwareStability _software = new(settings);
     private readonly DriftDetector _drift = new(settings);
 
-    public StabilitySettings Settings => settings;
-
     public StabilityVerdict Add(BalanceReading reading)
     {
         if (reading.Kind != ReadingKind.Weight || reading.ValueG is not { } valueG)
