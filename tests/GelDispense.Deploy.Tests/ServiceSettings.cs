@@ -5,7 +5,7 @@ namespace GelDispense.Deploy.Tests;
 
 /// <summary>
 /// What the deploy files must agree with, read from the service itself: its Kestrel endpoint names and protocols
-/// and its connection-string name (appsettings.json), its health route (Extensions/) and its assembly name.
+/// and its connection-string name (appsettings.json), its health route (its source) and its assembly name.
 /// </summary>
 internal static class ServiceSettings
 {
@@ -28,10 +28,12 @@ internal static class ServiceSettings
         XDocument.Load(RepoPaths.Of(ProjectPath)).Descendants("AssemblyName").FirstOrDefault()?.Value
         ?? Path.GetFileNameWithoutExtension(ProjectPath);
 
-    /// <summary>True when the host maps an ASP.NET Core health-check route at that path.</summary>
+    /// <summary>True when the host's source maps an ASP.NET Core health-check route at that path.</summary>
     public static bool MapsHealthRoute(string path) =>
-        Directory.EnumerateFiles(RepoPaths.Of("src/GelDispense.Service/Extensions"), "*.cs")
-            .Any(file => File.ReadAllText(file).Contains($"MapHealthChecks(\"{path}\")", StringComparison.Ordinal));
+        Directory.EnumerateFiles(RepoPaths.Of("src/GelDispense.Service"), "*.cs", SearchOption.AllDirectories)
+            .Where(file => !file.Contains($"{Path.DirectorySeparatorChar}obj{Path.DirectorySeparatorChar}", StringComparison.Ordinal)
+                && !file.Contains($"{Path.DirectorySeparatorChar}bin{Path.DirectorySeparatorChar}", StringComparison.Ordinal))
+            .Any(file => File.ReadAllText(file).Contains($"MapHealthChecks(\"{path}\"", StringComparison.Ordinal));
 
     /// <summary>The environment variable that sets a .NET configuration path (':' becomes '__').</summary>
     public static string EnvName(string configurationPath) => configurationPath.Replace(":", "__", StringComparison.Ordinal);
