@@ -10,6 +10,7 @@ namespace GelDispense.Benchmarks.Chemistry;
 /// resolving the recipe to masses, reporting on those masses, and the bare sums underneath.
 /// </summary>
 [MemoryDiagnoser]
+[MinColumn, MedianColumn]
 public class CompositionBenchmarks
 {
     private ReagentCatalog _catalog = null!;

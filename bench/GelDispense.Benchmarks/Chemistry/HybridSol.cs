@@ -10,7 +10,8 @@ namespace GelDispense.Benchmarks.Chemistry;
 /// The workload every chemistry benchmark runs: an 8-component TEOS–MTMS hybrid sol of our own (two
 /// precursors, ethanol and methanol as the free solvent pair, water, 0.1 M HCl in the acid stage, 1 M ammonia
 /// and formamide in the base stage), specified by R and oxide density and scaled to a 250 mL gel, planned on a
-/// 620 g precision balance with an air-displacement pipette at hand.
+/// 620 g precision balance with an air-displacement pipette at hand. The benchmark classes show the minimum and
+/// median beside the mean: on a 2-core machine shared with builds, the minimum is the figure other work disturbs least.
 /// </summary>
 public static class HybridSol
 {

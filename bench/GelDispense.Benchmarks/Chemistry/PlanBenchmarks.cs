@@ -12,6 +12,7 @@ namespace GelDispense.Benchmarks.Chemistry;
 /// as POST /v1/plans does; <see cref="BuildFromSolved"/> plans a formulation solved beforehand.
 /// </summary>
 [MemoryDiagnoser]
+[MinColumn, MedianColumn]
 public class PlanBenchmarks
 {
     private ReagentCatalog _catalog = null!;

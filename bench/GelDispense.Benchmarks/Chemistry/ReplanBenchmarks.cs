@@ -9,6 +9,7 @@ namespace GelDispense.Benchmarks.Chemistry;
 /// least-squares retarget of the six remaining steps, then their new windows.
 /// </summary>
 [MemoryDiagnoser]
+[MinColumn, MedianColumn]
 public class ReplanBenchmarks
 {
     private DispensingPlan _plan = null!;

@@ -9,6 +9,7 @@ namespace GelDispense.Benchmarks.Chemistry;
 /// solvent pair) and scaling to the 250 mL batch; the result carries the full composition.
 /// </summary>
 [MemoryDiagnoser]
+[MinColumn, MedianColumn]
 public class SolveBenchmarks
 {
     private ReagentCatalog _catalog = null!;
