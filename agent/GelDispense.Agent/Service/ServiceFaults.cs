@@ -1,0 +1,27 @@
+using Grpc.Core;
+using Polly.CircuitBreaker;
+
+namespace GelDispense.Agent.Service;
+
+/// <summary>
+/// Sorts failures of a call. Transient ones (the service is down, slow or shedding load) are retried and, when
+/// retries run out, mean "offline": the addition stays pending in the journal. Anything else is the service's
+/// considered answer (bad input, a closed batch) and is never retried.
+/// </summary>
+public static class ServiceFaults
+{
+    public static bool IsTransient(RpcException ex) =>
+        ex.StatusCode is StatusCode.Unavailable or StatusCode.DeadlineExceeded or StatusCode.ResourceExhausted;
+
+    /// <summary>True when the call never got a considered answer: a transient status after retries, or an open circuit.</summary>
+    public static bool IsUnreachable(Exception ex) =>
+        ex is BrokenCircuitException || (ex is RpcException rpc && IsTransient(rpc));
+
+    /// <summary>A short reason for the display and the log.</summary>
+    public static string Describe(Exception ex) => ex switch
+    {
+        BrokenCircuitException => "the service failed repeatedly; calls are paused for a moment",
+        RpcException rpc => $"{rpc.StatusCode}: {rpc.Status.Detail}",
+        _ => ex.Message,
+    };
+}
