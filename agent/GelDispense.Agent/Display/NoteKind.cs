@@ -1,0 +1,10 @@
+namespace GelDispense.Agent.Display;
+
+/// <summary>How loud a note to the technician is.</summary>
+public enum NoteKind
+{
+    Info,
+    Good,
+    Warning,
+    Alert,
+}
