@@ -18,6 +18,9 @@ public static class AgentCommandLine
         root.Subcommands.Add(WatchCommand.Create());
         root.Subcommands.Add(SimulateCommand.Create());
         root.Subcommands.Add(PortsCommand.Create());
+        root.Subcommands.Add(RunCommand.Create());
+        root.Subcommands.Add(PipetteCheckCommand.Create());
+        root.Subcommands.Add(DemoCommand.Create());
         return root;
     }
 
