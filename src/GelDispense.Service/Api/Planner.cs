@@ -4,18 +4,19 @@ using Contract = GelDispense.Contracts.V1;
 
 namespace GelDispense.Service.Api;
 
-/// <summary>Plans a recipe on a station's devices with the chemistry library's <see cref="PlanBuilder"/>.</summary>
-public sealed class Planner(ReagentDirectory reagents)
+/// <summary>Plans a recipe on a station's devices with the chemistry library's <see cref="PlanBuilder"/>, remembering plans already made.</summary>
+public sealed class Planner(ReagentDirectory reagents, PlanMemo memo)
 {
-    public async Task<Contract.DispensingPlan> PlanAsync(
+    public Task<Contract.DispensingPlan> PlanAsync(
         Contract.Recipe? recipe, Contract.BalanceProfile? balance, Contract.PipetteProfile? pipette, Contract.AirConditions? air,
-        CancellationToken cancellationToken)
-    {
-        var chemistryRecipe = RecipeMapping.ToChemistry(recipe);
-        var request = Request(balance, pipette, air);
-        var catalog = await reagents.LookupAsync(chemistryRecipe, cancellationToken);
-        return PlanMapping.ToContract(PlanBuilder.Build(chemistryRecipe, catalog, request), recipe!.Scale);
-    }
+        CancellationToken cancellationToken) =>
+        memo.GetOrPlanAsync(PlanMemo.Key(recipe, balance, pipette, air), async () =>
+        {
+            var chemistryRecipe = RecipeMapping.ToChemistry(recipe);
+            var request = Request(balance, pipette, air);
+            var catalog = await reagents.LookupAsync(chemistryRecipe, cancellationToken);
+            return PlanMapping.ToContract(PlanBuilder.Build(chemistryRecipe, catalog, request), recipe!.Scale);
+        });
 
     /// <summary>The station's devices and air as the library's plan request; bad values fail with their field names.</summary>
     public static PlanRequest Request(Contract.BalanceProfile? balance, Contract.PipetteProfile? pipette, Contract.AirConditions? air) =>

@@ -33,8 +33,7 @@ public sealed class AdditionRecorder(BatchLedger ledger, BatchStore store, Batch
             request.ReadingG.ToString("R", CultureInfo.InvariantCulture), request.Stable, source, request.LotId));
         for (var attempt = 0; ; attempt++)
         {
-            var head = await store.HeadAsync(request.BatchId, cancellationToken) ?? throw ApiException.NotFound("batchId", request.BatchId, "batch");
-            var additions = await store.AdditionsAsync([head.Id], cancellationToken);
+            var (head, additions) = await store.ProgressAsync(request.BatchId, cancellationToken) ?? throw ApiException.NotFound("batchId", request.BatchId, "batch");
             if (additions.FirstOrDefault(a => a.AdditionId == request.AdditionId) is { } earlier)
             {
                 return await ReplayAsync(earlier, contentHash, cancellationToken);
@@ -72,7 +71,7 @@ public sealed class AdditionRecorder(BatchLedger ledger, BatchStore store, Batch
                 BatchId = head.Id, AdditionId = request.AdditionId, Ordinal = additions.Count, StepIndex = request.StepIndex,
                 ReadingG = request.ReadingG, Stable = request.Stable, Source = source, LotId = request.LotId, TrueMassG = trueMassG,
                 WithinWindow = addition.WithinWindow, RecordedAt = TimeText.Format(at), ContentHash = contentHash,
-                Response = JsonFormatter.Default.Format(response), PlanRevision = inForce.Revision,
+                Response = StoredResponse.Write(response), PlanRevision = inForce.Revision,
             };
             var replan = outlook.Replanned
                 ? new PlanRevisionRow
@@ -98,8 +97,8 @@ public sealed class AdditionRecorder(BatchLedger ledger, BatchStore store, Batch
 
     public async Task<AsMade> AsMadeAsync(string batchId, CancellationToken cancellationToken)
     {
-        var head = await store.HeadAsync(batchId, cancellationToken) ?? throw ApiException.NotFound("batchId", batchId, "batch");
-        Addition[] additions = [.. (await store.AdditionsAsync([head.Id], cancellationToken)).Select(BatchMapping.ToContract)];
+        var (head, rows) = await store.ProgressAsync(batchId, cancellationToken) ?? throw ApiException.NotFound("batchId", batchId, "batch");
+        Addition[] additions = [.. rows.Select(BatchMapping.ToContract)];
         var basis = await plans.BasisAsync(head.Id, cancellationToken);
         return AsMadeMapping.ToContract(head.Id, basis.AsMade(additions), StepsDone(additions));
     }
@@ -133,7 +132,7 @@ public sealed class AdditionRecorder(BatchLedger ledger, BatchStore store, Batch
                 "this addition id was already recorded with other content; use a new id for a new addition");
         }
 
-        var response = JsonParser.Default.Parse<RecordAdditionResponse>(await store.ResponseAsync(earlier.BatchId, earlier.AdditionId, cancellationToken));
+        var response = StoredResponse.Read(await store.ResponseAsync(earlier.BatchId, earlier.AdditionId, cancellationToken));
         response.Replayed = true;
         return response;
     }

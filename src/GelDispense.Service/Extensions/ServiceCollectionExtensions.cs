@@ -28,6 +28,7 @@ public static class ServiceCollectionExtensions
 
         services.AddGelDispenseStorage(configuration);
         services.AddSingleton<ReagentDirectory>();
+        services.AddSingleton<PlanMemo>();
         services.AddSingleton<Planner>();
         services.AddSingleton<BatchEventSignal>();
         services.AddSingleton<BatchLedger>();

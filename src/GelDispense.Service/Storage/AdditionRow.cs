@@ -1,6 +1,6 @@
 namespace GelDispense.Service.Storage;
 
-/// <summary>One stored addition. <see cref="Response"/> is the RecordAdditionResponse JSON a replay returns unchanged.</summary>
+/// <summary>One stored addition. <see cref="Response"/> is the RecordAdditionResponse a replay returns unchanged (see Batches.StoredResponse).</summary>
 public sealed class AdditionRow
 {
     public string BatchId { get; init; } = "";

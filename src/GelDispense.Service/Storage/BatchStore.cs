@@ -30,6 +30,7 @@ public sealed class BatchStore(IDatabase database)
     /// <summary>Stores a batch; false when a concurrent writer took the same recipe revision number (retry).</summary>
     public async Task<bool> TryCreateAsync(NewBatch batch, CancellationToken cancellationToken)
     {
+        using var turn = await database.EnterWriteAsync(cancellationToken);
         await using var connection = await database.OpenAsync(cancellationToken);
         await using var transaction = await connection.BeginTransactionAsync(cancellationToken);
         try
@@ -56,12 +57,22 @@ public sealed class BatchStore(IDatabase database)
         return await connection.QuerySingleOrDefaultAsync<BatchRow>($"{SelectBatch} WHERE b.id = @id", new { id });
     }
 
-    /// <summary>What an addition needs to know of its batch before anything else: status, version and plan revision.</summary>
-    public async Task<BatchHead?> HeadAsync(string id, CancellationToken cancellationToken)
+    /// <summary>
+    /// What an addition reads before anything else, on one connection: the batch's status, version and plan revision,
+    /// and its additions so far. The two reads need not agree: a write made from them checks the version.
+    /// </summary>
+    public async Task<BatchProgress?> ProgressAsync(string id, CancellationToken cancellationToken)
     {
         await using var connection = await database.OpenAsync(cancellationToken);
-        return await connection.QuerySingleOrDefaultAsync<BatchHead>(
+        var head = await connection.QuerySingleOrDefaultAsync<BatchHead>(
             "SELECT id, status, version, plan_revision FROM batches WHERE id = @id", new { id });
+        if (head is null)
+        {
+            return null;
+        }
+
+        var additions = await connection.QueryAsync<AdditionRow>($"{SelectAddition} WHERE batch_id = @id ORDER BY ordinal", new { id = head.Id });
+        return new BatchProgress(head, [.. additions]);
     }
 
     /// <summary>What never changes about a batch: its recipe revision, its setup and its first plan (revision 0).</summary>
@@ -167,6 +178,7 @@ public sealed class BatchStore(IDatabase database)
         string batchId, long expectedVersion, DateTimeOffset at, string eventType, string eventBody, CancellationToken cancellationToken,
         Func<DbConnection, DbTransaction, Task> write)
     {
+        using var turn = await database.EnterWriteAsync(cancellationToken);
         await using var connection = await database.OpenAsync(cancellationToken);
         await using var transaction = await connection.BeginTransactionAsync(cancellationToken);
         try

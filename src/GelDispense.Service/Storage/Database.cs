@@ -25,8 +25,20 @@ public abstract class Database : IDatabase
 
     public abstract bool IsConflict(DbException exception);
 
+    public virtual ValueTask<IDisposable> EnterWriteAsync(CancellationToken cancellationToken) => ValueTask.FromResult(NoTurn.Instance);
+
     public abstract string AnyOf(string column, string parameter);
 
     /// <summary>An open connection without waiting for migrations (the migration runner's own).</summary>
     public abstract Task<DbConnection> OpenRawAsync(CancellationToken cancellationToken);
+
+    private sealed class NoTurn : IDisposable
+    {
+        public static readonly IDisposable Instance = new NoTurn();
+
+        public void Dispose()
+        {
+            // Nothing was held.
+        }
+    }
 }

@@ -14,6 +14,12 @@ public interface IDatabase
     /// <summary>An open connection on a migrated schema.</summary>
     Task<DbConnection> OpenAsync(CancellationToken cancellationToken);
 
+    /// <summary>
+    /// Waits for this process's turn to write, held until disposed. Engines that allow one writer at a time queue
+    /// their writers here, asynchronously and in arrival order; the others return at once.
+    /// </summary>
+    ValueTask<IDisposable> EnterWriteAsync(CancellationToken cancellationToken);
+
     /// <summary>SQL for "<paramref name="column"/> is one of the list parameter <paramref name="parameter"/>" (a Dapper list).</summary>
     string AnyOf(string column, string parameter);
 

@@ -47,6 +47,7 @@ public sealed class ReagentStore(IDatabase database)
 
     private async Task<bool> TryInsertAsync(string sql, object parameters, CancellationToken cancellationToken)
     {
+        using var turn = await database.EnterWriteAsync(cancellationToken);
         await using var connection = await database.OpenAsync(cancellationToken);
         try
         {
