@@ -1,0 +1,56 @@
+using GelDispense.Chemistry.Errors;
+using GelDispense.Contracts.V1;
+using GelDispense.Service.Api;
+
+namespace GelDispense.Service.Tests.Api;
+
+public sealed class PlanMemoTests
+{
+    private static readonly BalanceProfile Balance = new() { Id = "bal-7", ReadabilityG = 0.001, CapacityG = 220 };
+
+    [Fact]
+    public async Task The_same_request_is_planned_once_and_every_caller_gets_its_own_copy()
+    {
+        using var memo = new PlanMemo();
+        var key = PlanMemo.Key(new Recipe { Name = "silica-r4" }, Balance, null, null);
+        var computed = 0;
+        Task<DispensingPlan> Plan()
+        {
+            computed++;
+            return Task.FromResult(new DispensingPlan { Feasible = true, Steps = { new PlanStep { Index = 0, ReagentId = "teos", TargetMassG = 20.83 } } });
+        }
+
+        var first = await memo.GetOrPlanAsync(key, Plan);
+        first.Steps[0].TargetMassG = 99;
+        var second = await memo.GetOrPlanAsync(PlanMemo.Key(new Recipe { Name = "silica-r4" }, Balance, null, null), Plan);
+
+        Assert.Equal(1, computed);
+        Assert.Equal(20.83, second.Steps[0].TargetMassG);
+    }
+
+    [Fact]
+    public async Task A_request_that_failed_is_planned_again_next_time()
+    {
+        using var memo = new PlanMemo();
+        var key = PlanMemo.Key(new Recipe { Name = "needs-a-custom-reagent" }, Balance, null, null);
+
+        await Assert.ThrowsAsync<InvalidInputException>(() => memo.GetOrPlanAsync(key,
+            () => throw new InvalidInputException("recipe.components[0].reagentId", "ipa-dry", "no such reagent")));
+        var plan = await memo.GetOrPlanAsync(key, () => Task.FromResult(new DispensingPlan { Feasible = true }));
+
+        Assert.True(plan.Feasible);
+    }
+
+    [Fact]
+    public void Requests_that_differ_in_any_device_have_different_keys()
+    {
+        var recipe = new Recipe { Name = "silica-r4" };
+
+        var plain = PlanMemo.Key(recipe, Balance, null, null);
+        var warmer = PlanMemo.Key(recipe, Balance, null, new AirConditions { TemperatureC = 25 });
+        var withPipette = PlanMemo.Key(recipe, Balance, new PipetteProfile { Id = "P1000", NominalVolumeUl = 1000, MinVolumeUl = 100 }, null);
+
+        Assert.NotEqual(plain, warmer);
+        Assert.NotEqual(plain, withPipette);
+    }
+}
