@@ -1,0 +1,43 @@
+using System.Globalization;
+
+namespace GelDispense.LoadHarness;
+
+/// <summary>
+/// What one run does. Every option is bounded so a run stays short and its load small: at most 64 clients, 60 s per
+/// scenario and a cap on the requests of each scenario, always against the in-process service on 127.0.0.1.
+/// </summary>
+public sealed record HarnessOptions(int Clients, TimeSpan Duration, TimeSpan Warmup, int MaxRequests, bool Additions, bool AdditionsOnly)
+{
+    public const string Usage =
+        "usage: GelDispense.LoadHarness [--clients 1..64 (8)] [--seconds 1..60 (8)] [--warmup-seconds 0..10 (2)] " +
+        "[--max-requests 1..1000000 (500000)] [--no-additions | --additions-only]";
+
+    public static HarnessOptions Parse(IReadOnlyList<string> args)
+    {
+        var options = new HarnessOptions(8, TimeSpan.FromSeconds(8), TimeSpan.FromSeconds(2), 500_000, Additions: true, AdditionsOnly: false);
+        for (var i = 0; i < args.Count; i++)
+        {
+            var name = args[i];
+            options = name switch
+            {
+                "--clients" => options with { Clients = Number(name, Value(args, ref i), 1, 64) },
+                "--seconds" => options with { Duration = TimeSpan.FromSeconds(Number(name, Value(args, ref i), 1, 60)) },
+                "--warmup-seconds" => options with { Warmup = TimeSpan.FromSeconds(Number(name, Value(args, ref i), 0, 10)) },
+                "--max-requests" => options with { MaxRequests = Number(name, Value(args, ref i), 1, 1_000_000) },
+                "--no-additions" => options with { Additions = false, AdditionsOnly = false },
+                "--additions-only" => options with { Additions = true, AdditionsOnly = true },
+                _ => throw new ArgumentException($"{name}: unknown option. {Usage}"),
+            };
+        }
+
+        return options;
+    }
+
+    private static string Value(IReadOnlyList<string> args, ref int i) =>
+        ++i < args.Count ? args[i] : throw new ArgumentException($"{args[i - 1]}: a value is required. {Usage}");
+
+    private static int Number(string name, string text, int min, int max) =>
+        int.TryParse(text, NumberStyles.None, CultureInfo.InvariantCulture, out var value) && value >= min && value <= max
+            ? value
+            : throw new ArgumentException($"{name} '{text}': must be a whole number from {min} to {max}.");
+}

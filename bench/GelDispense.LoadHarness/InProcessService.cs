@@ -1,0 +1,69 @@
+using System.Net;
+using System.Net.Sockets;
+using GelDispense.Service.Extensions;
+using Microsoft.AspNetCore.Builder;
+using Microsoft.Data.Sqlite;
+using Microsoft.Extensions.Hosting;
+
+namespace GelDispense.LoadHarness;
+
+/// <summary>
+/// The real service, built by the same call as its Program.cs, on loopback Kestrel: REST (HTTP/1.1) and gRPC
+/// (HTTP/2) on two free ports, SQLite in a temporary directory that is deleted afterwards. Request logging is
+/// turned down to warnings, so the figures measure the API and not the console.
+/// </summary>
+public sealed class InProcessService : IAsyncDisposable
+{
+    private readonly WebApplication _app;
+    private readonly string _directory;
+
+    private InProcessService(WebApplication app, string directory, Uri rest, Uri grpc)
+    {
+        _app = app;
+        _directory = directory;
+        RestAddress = rest;
+        GrpcAddress = grpc;
+    }
+
+    public Uri RestAddress { get; }
+
+    public Uri GrpcAddress { get; }
+
+    public static async Task<InProcessService> StartAsync()
+    {
+        var directory = Path.Combine(Path.GetTempPath(), $"geldispense-load-{Guid.NewGuid():N}");
+        Directory.CreateDirectory(directory);
+        var rest = new Uri($"http://127.0.0.1:{FreePort()}");
+        var grpc = new Uri($"http://127.0.0.1:{FreePort()}");
+        var builder = WebApplication.CreateBuilder(new WebApplicationOptions
+        {
+            EnvironmentName = Environments.Production,
+            ContentRootPath = AppContext.BaseDirectory,
+            Args =
+            [
+                $"--Kestrel:Endpoints:Rest:Url={rest}", "--Kestrel:Endpoints:Rest:Protocols=Http1",
+                $"--Kestrel:Endpoints:Grpc:Url={grpc}", "--Kestrel:Endpoints:Grpc:Protocols=Http2",
+                "--Storage:Provider=Sqlite", $"--ConnectionStrings:GelDispense=Data Source={Path.Combine(directory, "geldispense.db")}",
+                "--Serilog:MinimumLevel:Default=Warning",
+            ],
+        });
+        var app = builder.BuildGelDispense();
+        await app.StartAsync();
+        return new InProcessService(app, directory, rest, grpc);
+    }
+
+    public async ValueTask DisposeAsync()
+    {
+        await _app.StopAsync();
+        await _app.DisposeAsync();
+        SqliteConnection.ClearAllPools();
+        Directory.Delete(_directory, recursive: true);
+    }
+
+    private static int FreePort()
+    {
+        using var listener = new TcpListener(IPAddress.Loopback, 0);
+        listener.Start();
+        return ((IPEndPoint)listener.LocalEndpoint).Port;
+    }
+}

@@ -1,0 +1,26 @@
+using System.Text;
+
+namespace GelDispense.LoadHarness;
+
+/// <summary>A REST client with its own HTTP/1.1 connection that posts to one route, with the body <paramref name="json"/> gives for each call.</summary>
+public sealed class RestCall(Uri baseAddress, string path, Func<string> json) : ILoadClient
+{
+    private readonly HttpClient _http = new(new SocketsHttpHandler { MaxConnectionsPerServer = 1 }) { BaseAddress = baseAddress };
+
+    public Task PrepareAsync(CancellationToken cancellationToken) => Task.CompletedTask;
+
+    public Task CallAsync(CancellationToken cancellationToken) => PostAsync(_http, path, json(), cancellationToken);
+
+    public void Dispose() => _http.Dispose();
+
+    /// <summary>Posts and reads the whole answer, so the figures include writing the response; fails on any non-2xx status.</summary>
+    public static async Task<string> PostAsync(HttpClient http, string path, string json, CancellationToken cancellationToken)
+    {
+        using var content = new StringContent(json, Encoding.UTF8, "application/json");
+        using var response = await http.PostAsync(path, content, cancellationToken);
+        var body = await response.Content.ReadAsStringAsync(cancellationToken);
+        return response.IsSuccessStatusCode
+            ? body
+            : throw new HttpRequestException($"POST {path} answered {(int)response.StatusCode}: {(body.Length > 300 ? body[..300] : body)}");
+    }
+}
