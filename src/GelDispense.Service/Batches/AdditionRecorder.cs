@@ -61,6 +61,8 @@ public sealed class AdditionRecorder(BatchLedger ledger, BatchStore store, Batch
                 WithinWindow = !step.Done && Math.Abs(stepMassG - step.TargetMassG) <= step.AcceptanceG + (1e-9 * step.TargetMassG),
                 RecordedAt = Timestamp.FromDateTimeOffset(at),
                 PlanRevision = (int)inForce.Revision,
+                TargetMassG = step.TargetMassG,
+                AcceptanceG = step.AcceptanceG,
             };
             Addition[] all = [.. additions.Select(BatchMapping.ToContract), addition];
             var outlook = addition.WithinWindow ? BatchOutlook.Keep(inForce, all) : BatchOutlook.Replan(inForce, all);
@@ -71,7 +73,7 @@ public sealed class AdditionRecorder(BatchLedger ledger, BatchStore store, Batch
                 BatchId = head.Id, AdditionId = request.AdditionId, Ordinal = additions.Count, StepIndex = request.StepIndex,
                 ReadingG = request.ReadingG, Stable = request.Stable, Source = source, LotId = request.LotId, TrueMassG = trueMassG,
                 WithinWindow = addition.WithinWindow, RecordedAt = TimeText.Format(at), ContentHash = contentHash,
-                Response = StoredResponse.Write(response), PlanRevision = inForce.Revision,
+                Response = StoredResponse.Write(response), PlanRevision = inForce.Revision, TargetMassG = step.TargetMassG, AcceptanceG = step.AcceptanceG,
             };
             var replan = outlook.Replanned
                 ? new PlanRevisionRow

@@ -6,13 +6,14 @@ namespace GelDispense.Service.Batches;
 
 /// <summary>
 /// The CSV export: one row per addition, RFC 4180 quoting, units in the column names, invariant culture
-/// (decimal point, ISO 8601 UTC times) so any LIMS or spreadsheet reads it the same way.
+/// (decimal point, ISO 8601 UTC times) so any LIMS or spreadsheet reads it the same way. Each row carries the
+/// target and acceptance band its addition was judged against (its plan revision), which a later re-plan does not move.
 /// </summary>
 public static class AdditionsCsv
 {
     public const string Header =
         "batch_id,station_id,batch_status,recipe_name,recipe_revision,addition_id,step_index,reagent_id,lot_id," +
-        "reading_g,true_mass_g,target_mass_g,tolerance_g,within_window,stable,source,recorded_at_utc";
+        "reading_g,true_mass_g,plan_revision,target_mass_g,acceptance_g,within_window,stable,source,recorded_at_utc";
 
     public static void AppendRows(StringBuilder csv, Batch batch)
     {
@@ -24,7 +25,7 @@ public static class AdditionsCsv
             [
                 batch.Id, batch.StationId, batch.Status.ToString(), batch.RecipeName, Number(batch.RecipeRevision), a.AdditionId,
                 Number(a.StepIndex), step?.ReagentId ?? "", a.LotId, Number(a.ReadingG), Number(a.TrueMassG),
-                step is null ? "" : Number(step.TargetMassG), step is null ? "" : Number(step.ToleranceG),
+                Number(a.PlanRevision), Number(a.TargetMassG), Number(a.AcceptanceG),
                 a.WithinWindow ? "true" : "false", a.Stable ? "true" : "false", a.Source,
                 a.RecordedAt.ToDateTimeOffset().UtcDateTime.ToString("yyyy-MM-dd'T'HH:mm:ss.ffffff'Z'", CultureInfo.InvariantCulture),
             ];

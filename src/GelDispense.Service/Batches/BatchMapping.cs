@@ -54,6 +54,8 @@ public static class BatchMapping
         WithinWindow = row.WithinWindow,
         RecordedAt = Timestamp.FromDateTimeOffset(TimeText.Parse(row.RecordedAt)),
         PlanRevision = (int)row.PlanRevision,
+        TargetMassG = row.TargetMassG,
+        AcceptanceG = row.AcceptanceG,
     };
 
     public static BatchEvent ToContract(EventRow row)

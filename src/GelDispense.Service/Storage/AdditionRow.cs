@@ -21,4 +21,8 @@ public sealed class AdditionRow
     public string Response { get; init; } = "";
     /// <summary>The plan revision the addition was judged against.</summary>
     public long PlanRevision { get; init; }
+    /// <summary>The step's target true mass in that revision.</summary>
+    public double TargetMassG { get; init; }
+    /// <summary>The step's acceptance band (half-width) in that revision.</summary>
+    public double AcceptanceG { get; init; }
 }

@@ -21,7 +21,7 @@ public sealed class BatchStore(IDatabase database)
     // Without the stored response: only a replay needs it (ResponseAsync), and it is the largest column by far.
     private const string SelectAddition = """
         SELECT batch_id, addition_id, ordinal, step_index, reading_g, stable, source, lot_id, true_mass_g,
-               within_window, recorded_at, content_hash, plan_revision
+               within_window, recorded_at, content_hash, plan_revision, target_mass_g, acceptance_g
         FROM additions
         """;
 
@@ -125,9 +125,9 @@ public sealed class BatchStore(IDatabase database)
         {
             await connection.ExecuteAsync("""
                 INSERT INTO additions (batch_id, addition_id, ordinal, step_index, reading_g, stable, source, lot_id, true_mass_g,
-                                       within_window, recorded_at, content_hash, response, plan_revision)
+                                       within_window, recorded_at, content_hash, response, plan_revision, target_mass_g, acceptance_g)
                 VALUES (@BatchId, @AdditionId, @Ordinal, @StepIndex, @ReadingG, @Stable, @Source, @LotId, @TrueMassG,
-                        @WithinWindow, @RecordedAt, @ContentHash, @Response, @PlanRevision)
+                        @WithinWindow, @RecordedAt, @ContentHash, @Response, @PlanRevision, @TargetMassG, @AcceptanceG)
                 """, addition, transaction);
             if (replan is not null)
             {
