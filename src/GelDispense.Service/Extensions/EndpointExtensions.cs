@@ -1,6 +1,5 @@
 using GelDispense.Service.Api;
 using GelDispense.Service.Errors;
-using GelDispense.Service.Security;
 
 namespace GelDispense.Service.Extensions;
 
@@ -13,7 +12,6 @@ public static class EndpointExtensions
         app.UseMiddleware<RestProblemMiddleware>();
         app.UseSwagger();
         app.UseSwaggerUI(options => options.DocumentTitle = "GelDispense API");
-        app.UseGelDispenseSecurity();
         return app;
     }
 
@@ -24,11 +22,10 @@ public static class EndpointExtensions
         app.MapGrpcService<ReagentApi>();
         app.MapGrpcService<BatchApi>();
         app.MapGrpcService<ProbeApi>();
-        app.MapGrpcService<ApiKeyApi>();
-        app.MapGrpcReflectionService().RequireAuthorization(Policies.Read);
-        app.MapGrpcHealthChecksService().AllowAnonymous();
-        app.MapHealthChecks("/healthz").AllowAnonymous();
-        app.MapGet("/", () => Results.Redirect("/swagger")).ExcludeFromDescription().AllowAnonymous();
+        app.MapGrpcReflectionService();
+        app.MapGrpcHealthChecksService();
+        app.MapHealthChecks("/healthz");
+        app.MapGet("/", () => Results.Redirect("/swagger")).ExcludeFromDescription();
         return app;
     }
 }

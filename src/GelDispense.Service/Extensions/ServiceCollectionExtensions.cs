@@ -27,7 +27,6 @@ public static class ServiceCollectionExtensions
         services.AddGelDispenseSwagger();
 
         services.AddGelDispenseStorage(configuration);
-        services.AddGelDispenseSecurity(configuration);
         services.AddSingleton<ReagentDirectory>();
         services.AddSingleton<PlanMemo>();
         services.AddSingleton<Planner>();
