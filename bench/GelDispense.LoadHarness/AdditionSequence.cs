@@ -7,9 +7,9 @@ namespace GelDispense.LoadHarness;
 /// A station making demo batches one after another over REST: starts a batch (untimed), then records each step at
 /// its target reading, in order (timed). Each client has its own batches, so clients never contend for one batch.
 /// </summary>
-public sealed class AdditionSequence(Uri baseAddress, string batchJson, int clientIndex) : ILoadClient
+public sealed class AdditionSequence(Uri baseAddress, string? apiKey, string batchJson, int clientIndex) : ILoadClient
 {
-    private readonly HttpClient _http = new(new SocketsHttpHandler { MaxConnectionsPerServer = 1 }) { BaseAddress = baseAddress };
+    private readonly HttpClient _http = RestCall.Connect(baseAddress, apiKey);
     private string _batchId = "";
     private JsonArray _steps = [];
     private int _next;

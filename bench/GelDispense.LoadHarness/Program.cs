@@ -49,17 +49,16 @@ public static class Program
             return Report(results);
         }
 
-        await Run(ResultTable.NoOp, "REST", _ => new RestCall(service.RestAddress, "/v1/ping", () => "{}"));
-        await Run(ResultTable.PlanRepeated, "REST", _ => new RestCall(service.RestAddress, "/v1/plans", () => workload.PlanJson));
-        await Run(ResultTable.PlanComputed, "REST", _ => new RestCall(service.RestAddress, "/v1/plans",
-            () => workload.PlanJsonAt(workload.FreshGelVolumeMl())));
-        await Run(ResultTable.NoOp, "gRPC", _ => new GrpcCall(service.GrpcAddress,
-            (channel, ct) => new ProbeService.ProbeServiceClient(channel).PingAsync(new PingRequest(), cancellationToken: ct).ResponseAsync));
-        await Run(ResultTable.PlanRepeated, "gRPC", _ => new GrpcCall(service.GrpcAddress,
-            (channel, ct) => new PlanService.PlanServiceClient(channel).CreatePlanAsync(workload.PlanRequest, cancellationToken: ct).ResponseAsync));
-        await Run(ResultTable.PlanComputed, "gRPC", _ => new GrpcCall(service.GrpcAddress,
-            (channel, ct) => new PlanService.PlanServiceClient(channel).CreatePlanAsync(
-                workload.PlanRequestAt(workload.FreshGelVolumeMl()), cancellationToken: ct).ResponseAsync));
+        var (rest, grpc, key) = (service.RestAddress, service.GrpcAddress, service.ApiKey);
+        await Run(ResultTable.NoOp, "REST", _ => new RestCall(rest, key, "/v1/ping", () => "{}"));
+        await Run(ResultTable.PlanRepeated, "REST", _ => new RestCall(rest, key, "/v1/plans", () => workload.PlanJson));
+        await Run(ResultTable.PlanComputed, "REST", _ => new RestCall(rest, key, "/v1/plans", () => workload.PlanJsonAt(workload.FreshGelVolumeMl())));
+        await Run(ResultTable.NoOp, "gRPC", _ => new GrpcCall(grpc, key,
+            (channel, call) => new ProbeService.ProbeServiceClient(channel).PingAsync(new PingRequest(), call).ResponseAsync));
+        await Run(ResultTable.PlanRepeated, "gRPC", _ => new GrpcCall(grpc, key,
+            (channel, call) => new PlanService.PlanServiceClient(channel).CreatePlanAsync(workload.PlanRequest, call).ResponseAsync));
+        await Run(ResultTable.PlanComputed, "gRPC", _ => new GrpcCall(grpc, key,
+            (channel, call) => new PlanService.PlanServiceClient(channel).CreatePlanAsync(workload.PlanRequestAt(workload.FreshGelVolumeMl()), call).ResponseAsync));
         if (options.Additions)
         {
             await RunAdditionsAsync(Run, service, workload);
@@ -72,8 +71,8 @@ public static class Program
     private static async Task RunAdditionsAsync(Func<string, string, Func<int, ILoadClient>, int?, Task> run, InProcessService service, DemoWorkload workload)
     {
         const string scenario = "record addition POST /v1/batches/{id}/additions";
-        await run(scenario, "REST", k => new AdditionSequence(service.RestAddress, workload.BatchJson, k), 1);
-        await run(scenario, "REST", k => new AdditionSequence(service.RestAddress, workload.BatchJson, k), null);
+        await run(scenario, "REST", k => new AdditionSequence(service.RestAddress, service.ApiKey, workload.BatchJson, k), 1);
+        await run(scenario, "REST", k => new AdditionSequence(service.RestAddress, service.ApiKey, workload.BatchJson, k), null);
     }
 
     private static int Report(IReadOnlyList<LoadResult> results)

@@ -1,17 +1,30 @@
+using System.Net.Http.Headers;
 using System.Text;
 
 namespace GelDispense.LoadHarness;
 
 /// <summary>A REST client with its own HTTP/1.1 connection that posts to one route, with the body <paramref name="json"/> gives for each call.</summary>
-public sealed class RestCall(Uri baseAddress, string path, Func<string> json) : ILoadClient
+public sealed class RestCall(Uri baseAddress, string? apiKey, string path, Func<string> json) : ILoadClient
 {
-    private readonly HttpClient _http = new(new SocketsHttpHandler { MaxConnectionsPerServer = 1 }) { BaseAddress = baseAddress };
+    private readonly HttpClient _http = Connect(baseAddress, apiKey);
 
     public Task PrepareAsync(CancellationToken cancellationToken) => Task.CompletedTask;
 
     public Task CallAsync(CancellationToken cancellationToken) => PostAsync(_http, path, json(), cancellationToken);
 
     public void Dispose() => _http.Dispose();
+
+    /// <summary>An HTTP/1.1 client with one connection, sending the API key when there is one.</summary>
+    public static HttpClient Connect(Uri baseAddress, string? apiKey)
+    {
+        var http = new HttpClient(new SocketsHttpHandler { MaxConnectionsPerServer = 1 }) { BaseAddress = baseAddress };
+        if (apiKey is not null)
+        {
+            http.DefaultRequestHeaders.Authorization = new AuthenticationHeaderValue("Bearer", apiKey);
+        }
+
+        return http;
+    }
 
     /// <summary>Posts and reads the whole answer, so the figures include writing the response; fails on any non-2xx status.</summary>
     public static async Task<string> PostAsync(HttpClient http, string path, string json, CancellationToken cancellationToken)
