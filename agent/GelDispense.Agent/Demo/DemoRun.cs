@@ -4,6 +4,7 @@ using GelDispense.Agent.Hosting;
 using GelDispense.Agent.Service;
 using GelDispense.Agent.Simulation;
 using GelDispense.Agent.Station;
+using GelDispense.Service.Security;
 
 namespace GelDispense.Agent.Demo;
 
@@ -32,12 +33,13 @@ public static class DemoRun
                 new BalanceSimulator(simulator, technician, new Random(seed)),
                 new SampleRenderer(BuiltInFormats.Column, simulator.ReadabilityG, new Random(seed + 1)),
                 port, simulator, time);
+            var stationKey = await service.IssueKeyAsync(Roles.Station, DemoScenario.StationId, cancellationToken).ConfigureAwait(false);
             using var stopSimulator = CancellationTokenSource.CreateLinkedTokenSource(cancellationToken);
             var simulating = host.RunAsync(null, stopSimulator.Token);
             display.Note(NoteKind.Info, $"simulated balance (column format, d = 0.01 g) on {port.Describe}; technician over-pours step 1 by 3 %");
             try
             {
-                await using var session = StationSession.Open(DemoScenario.StationConfig(balancePath, service.Address), Path.Combine(directory.FullName, "station", "journal.db"), new ServiceLinkSettings(), time);
+                await using var session = StationSession.Open(DemoScenario.StationConfig(balancePath, service.Address) with { ApiKey = stationKey }, Path.Combine(directory.FullName, "station", "journal.db"), new ServiceLinkSettings(), time);
                 var start = new BatchStart(DemoScenario.Recipe(), null, DemoScenario.Balance, DemoScenario.Pipette);
                 var batch = await session.StartAsync(start, display, cancellationToken).ConfigureAwait(false);
                 var settings = new RunSettings { TareCommand = DemoScenario.TareCommand, Lots = DemoScenario.Lots, ReadabilityG = DemoScenario.Simulator.ReadabilityG };

@@ -1,4 +1,5 @@
 using GelDispense.Service.Extensions;
+using GelDispense.Service.Security;
 using Microsoft.AspNetCore.Builder;
 using Microsoft.AspNetCore.Hosting.Server;
 using Microsoft.AspNetCore.Hosting.Server.Features;
@@ -27,6 +28,13 @@ public sealed class EmbeddedService : IAsyncDisposable
     public Uri Address { get; }
 
     public int Port => Address.Port;
+
+    /// <summary>
+    /// Issues a key on this service, as an admin would with POST /v1/api-keys: the demo gives its station a station
+    /// key, so the agent talks to the embedded service exactly as it would to a real one.
+    /// </summary>
+    public async Task<string> IssueKeyAsync(string role, string stationId, CancellationToken cancellationToken = default) =>
+        (await _app.Services.GetRequiredService<ApiKeyIssuer>().IssueAsync(role, stationId, null, "embedded " + role, cancellationToken).ConfigureAwait(false)).Key;
 
     /// <param name="databasePath">The SQLite file; created with its directory when missing.</param>
     /// <param name="port">Loopback port for gRPC; 0 picks a free one. Reuse <see cref="Port"/> to restart "the same" service.</param>

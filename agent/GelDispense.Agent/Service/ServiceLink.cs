@@ -28,7 +28,8 @@ public sealed class ServiceLink
         Describe = describe;
         if (!string.IsNullOrEmpty(apiKey))
         {
-            _headers.Add("x-api-key", apiKey);
+            // The service reads the same bearer credential from gRPC metadata as from a REST header.
+            _headers.Add("authorization", "Bearer " + apiKey);
         }
     }
 

@@ -4,6 +4,8 @@ using GelDispense.Service.Batches;
 using Google.Api;
 using Google.Protobuf;
 using Grpc.Core;
+using GelDispense.Service.Security;
+using Microsoft.AspNetCore.Authorization;
 
 namespace GelDispense.Service.Api;
 
@@ -13,48 +15,59 @@ public sealed class BatchApi(Planner planner, BatchLedger ledger, AdditionRecord
     /// <summary>How often a watcher re-reads the event log for events written by other replicas.</summary>
     public static readonly TimeSpan WatchPollInterval = TimeSpan.FromSeconds(1);
 
+    [Authorize(Policy = Policies.RunBatches)]
     public override async Task<Batch> CreateBatch(CreateBatchRequest request, ServerCallContext context)
     {
         log.Station(request.StationId);
+        Caller.From(context.GetHttpContext().User).RequireStation(request.StationId.Trim(), "stationId");
         var plan = await planner.PlanAsync(request.Recipe, request.Balance, request.Pipette, request.Air, context.CancellationToken);
         var batch = await ledger.CreateAsync(request, plan, context.CancellationToken);
         log.Batch(batch.Id);
         return batch;
     }
 
+    [Authorize(Policy = Policies.Read)]
     public override Task<Batch> GetBatch(GetBatchRequest request, ServerCallContext context)
     {
         log.Batch(request.Id);
         return ledger.GetAsync(request.Id, context.CancellationToken);
     }
 
+    [Authorize(Policy = Policies.RunBatches)]
     public override Task<RecordAdditionResponse> RecordAddition(RecordAdditionRequest request, ServerCallContext context)
     {
         log.Batch(request.BatchId);
-        return additions.RecordAsync(request, context.CancellationToken);
+        return additions.RecordAsync(request, Caller.From(context.GetHttpContext().User), context.CancellationToken);
     }
 
+    [Authorize(Policy = Policies.Read)]
     public override Task<AsMade> GetAsMade(GetAsMadeRequest request, ServerCallContext context)
     {
         log.Batch(request.BatchId);
         return additions.AsMadeAsync(request.BatchId, context.CancellationToken);
     }
 
-    public override Task<Batch> CompleteBatch(CompleteBatchRequest request, ServerCallContext context)
+    [Authorize(Policy = Policies.RunBatches)]
+    public override async Task<Batch> CompleteBatch(CompleteBatchRequest request, ServerCallContext context)
     {
         log.Batch(request.Id);
-        return ledger.CloseAsync(request.Id, BatchStatus.Completed, "", context.CancellationToken);
+        await RequireOwnBatchAsync(request.Id, context);
+        return await ledger.CloseAsync(request.Id, BatchStatus.Completed, "", context.CancellationToken);
     }
 
-    public override Task<Batch> AbortBatch(AbortBatchRequest request, ServerCallContext context)
+    [Authorize(Policy = Policies.RunBatches)]
+    public override async Task<Batch> AbortBatch(AbortBatchRequest request, ServerCallContext context)
     {
         log.Batch(request.Id);
-        return ledger.CloseAsync(request.Id, BatchStatus.Aborted, request.Reason, context.CancellationToken);
+        await RequireOwnBatchAsync(request.Id, context);
+        return await ledger.CloseAsync(request.Id, BatchStatus.Aborted, request.Reason, context.CancellationToken);
     }
 
+    [Authorize(Policy = Policies.Read)]
     public override Task<ListBatchesResponse> ListBatches(ListBatchesRequest request, ServerCallContext context) =>
         ledger.ListAsync(request, context.CancellationToken);
 
+    [Authorize(Policy = Policies.Read)]
     public override async Task<HttpBody> ExportAdditionsCsv(ExportAdditionsCsvRequest request, ServerCallContext context)
     {
         var csv = new StringBuilder(AdditionsCsv.Header).Append("\r\n");
@@ -83,6 +96,7 @@ public sealed class BatchApi(Planner planner, BatchLedger ledger, AdditionRecord
         return new HttpBody { ContentType = "text/csv; charset=utf-8", Data = ByteString.CopyFromUtf8(csv.ToString()) };
     }
 
+    [Authorize(Policy = Policies.Read)]
     public override async Task WatchBatch(WatchBatchRequest request, IServerStreamWriter<BatchEvent> responseStream, ServerCallContext context)
     {
         log.Batch(request.BatchId);
@@ -101,6 +115,16 @@ public sealed class BatchApi(Planner planner, BatchLedger ledger, AdditionRecord
             }
 
             await signal.WaitAsync(batchId, WatchPollInterval, context.CancellationToken);
+        }
+    }
+
+    /// <summary>A station caller may close only its own station's batches; others skip the extra read.</summary>
+    private async Task RequireOwnBatchAsync(string batchId, ServerCallContext context)
+    {
+        var caller = Caller.From(context.GetHttpContext().User);
+        if (caller.OwnStationId is not null)
+        {
+            caller.RequireStation((await ledger.FindAsync(batchId, "id", context.CancellationToken)).StationId, "id");
         }
     }
 }

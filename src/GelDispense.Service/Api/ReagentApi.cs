@@ -8,6 +8,8 @@ using GelDispense.Service.Mapping;
 using GelDispense.Service.Storage;
 using Google.Protobuf;
 using Grpc.Core;
+using GelDispense.Service.Security;
+using Microsoft.AspNetCore.Authorization;
 
 namespace GelDispense.Service.Api;
 
@@ -17,6 +19,7 @@ public sealed partial class ReagentApi(ReagentDirectory directory, ReagentStore 
     [GeneratedRegex("^[a-z0-9][a-z0-9-]{0,63}$")]
     private static partial Regex IdPattern();
 
+    [Authorize(Policy = Policies.Read)]
     public override async Task<ListReagentsResponse> ListReagents(ListReagentsRequest request, ServerCallContext context)
     {
         var response = new ListReagentsResponse();
@@ -26,6 +29,7 @@ public sealed partial class ReagentApi(ReagentDirectory directory, ReagentStore 
         return response;
     }
 
+    [Authorize(Policy = Policies.Read)]
     public override async Task<Contracts.V1.Reagent> GetReagent(GetReagentRequest request, ServerCallContext context)
     {
         var reagent = await directory.FindAsync(request.Id, context.CancellationToken)
@@ -33,6 +37,7 @@ public sealed partial class ReagentApi(ReagentDirectory directory, ReagentStore 
         return ReagentMapping.ToContract(reagent, directory.IsBuiltIn(reagent.Id));
     }
 
+    [Authorize(Policy = Policies.WriteCatalog)]
     public override async Task<Contracts.V1.Reagent> CreateReagent(CreateReagentRequest request, ServerCallContext context)
     {
         var submitted = request.Reagent ?? throw new InvalidInputException("reagent", "", "a reagent is required");
@@ -64,6 +69,7 @@ public sealed partial class ReagentApi(ReagentDirectory directory, ReagentStore 
         return stored;
     }
 
+    [Authorize(Policy = Policies.WriteCatalog)]
     public override async Task<ReagentLot> CreateReagentLot(CreateReagentLotRequest request, ServerCallContext context)
     {
         var reagent = await directory.FindAsync(request.ReagentId, context.CancellationToken)
@@ -106,6 +112,7 @@ public sealed partial class ReagentApi(ReagentDirectory directory, ReagentStore 
         return stored;
     }
 
+    [Authorize(Policy = Policies.Read)]
     public override async Task<ListReagentLotsResponse> ListReagentLots(ListReagentLotsRequest request, ServerCallContext context)
     {
         var reagent = await directory.FindAsync(request.ReagentId, context.CancellationToken)

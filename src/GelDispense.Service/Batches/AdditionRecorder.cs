@@ -4,6 +4,7 @@ using GelDispense.Contracts.V1;
 using GelDispense.Service.Api;
 using GelDispense.Service.Errors;
 using GelDispense.Service.Mapping;
+using GelDispense.Service.Security;
 using GelDispense.Service.Storage;
 using Google.Protobuf;
 using Google.Protobuf.WellKnownTypes;
@@ -26,7 +27,7 @@ public sealed class AdditionRecorder(BatchLedger ledger, BatchStore store, Batch
 {
     public static readonly string[] Sources = ["balance", "manual", "dispenser"];
 
-    public async Task<RecordAdditionResponse> RecordAsync(RecordAdditionRequest request, CancellationToken cancellationToken)
+    public async Task<RecordAdditionResponse> RecordAsync(RecordAdditionRequest request, Caller caller, CancellationToken cancellationToken)
     {
         var source = Validate(request);
         var contentHash = BatchLedger.Hash(string.Join('|', request.StepIndex.ToString(CultureInfo.InvariantCulture),
@@ -34,6 +35,7 @@ public sealed class AdditionRecorder(BatchLedger ledger, BatchStore store, Batch
         for (var attempt = 0; ; attempt++)
         {
             var (head, additions) = await store.ProgressAsync(request.BatchId, cancellationToken) ?? throw ApiException.NotFound("batchId", request.BatchId, "batch");
+            caller.RequireStation(head.StationId, "batchId");
             if (additions.FirstOrDefault(a => a.AdditionId == request.AdditionId) is { } earlier)
             {
                 return await ReplayAsync(earlier, contentHash, cancellationToken);

@@ -20,6 +20,9 @@ public sealed class ApiException(StatusCode code, string message, IReadOnlyList<
     public static ApiException Conflict(string field, string value, string reason) =>
         new(StatusCode.FailedPrecondition, reason, [new InputError(field, value, reason)]);
 
+    public static ApiException Forbidden(string field, string value, string reason) =>
+        new(StatusCode.PermissionDenied, reason, [new InputError(field, value, reason)]);
+
     public static ApiException AlreadyExists(string field, string value, string reason) =>
         new(StatusCode.AlreadyExists, reason, [new InputError(field, value, reason)]);
 }

@@ -1,5 +1,6 @@
 using GelDispense.Service.Api;
 using GelDispense.Service.Errors;
+using GelDispense.Service.Security;
 
 namespace GelDispense.Service.Extensions;
 
@@ -12,6 +13,7 @@ public static class EndpointExtensions
         app.UseMiddleware<RestProblemMiddleware>();
         app.UseSwagger();
         app.UseSwaggerUI(options => options.DocumentTitle = "GelDispense API");
+        app.UseGelDispenseSecurity();
         return app;
     }
 
@@ -22,10 +24,11 @@ public static class EndpointExtensions
         app.MapGrpcService<ReagentApi>();
         app.MapGrpcService<BatchApi>();
         app.MapGrpcService<ProbeApi>();
-        app.MapGrpcReflectionService();
-        app.MapGrpcHealthChecksService();
-        app.MapHealthChecks("/healthz");
-        app.MapGet("/", () => Results.Redirect("/swagger")).ExcludeFromDescription();
+        app.MapGrpcService<ApiKeyApi>();
+        app.MapGrpcReflectionService().RequireAuthorization(Policies.Read);
+        app.MapGrpcHealthChecksService().AllowAnonymous();
+        app.MapHealthChecks("/healthz").AllowAnonymous();
+        app.MapGet("/", () => Results.Redirect("/swagger")).ExcludeFromDescription().AllowAnonymous();
         return app;
     }
 }

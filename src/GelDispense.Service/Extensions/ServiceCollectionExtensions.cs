@@ -27,6 +27,7 @@ public static class ServiceCollectionExtensions
         services.AddGelDispenseSwagger();
 
         services.AddGelDispenseStorage(configuration);
+        services.AddGelDispenseSecurity(configuration);
         services.AddSingleton<ReagentDirectory>();
         services.AddSingleton<PlanMemo>();
         services.AddSingleton<Planner>();

@@ -5,6 +5,7 @@ public sealed class BatchHead
 {
     public string Id { get; init; } = "";
     public string Status { get; init; } = "";
+    public string StationId { get; init; } = "";
     public long Version { get; init; }
     public long PlanRevision { get; init; }
 }

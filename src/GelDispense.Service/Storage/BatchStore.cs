@@ -65,7 +65,7 @@ public sealed class BatchStore(IDatabase database)
     {
         await using var connection = await database.OpenAsync(cancellationToken);
         var head = await connection.QuerySingleOrDefaultAsync<BatchHead>(
-            "SELECT id, status, version, plan_revision FROM batches WHERE id = @id", new { id });
+            "SELECT id, status, station_id, version, plan_revision FROM batches WHERE id = @id", new { id });
         if (head is null)
         {
             return null;

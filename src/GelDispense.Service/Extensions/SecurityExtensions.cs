@@ -1,0 +1,85 @@
+using System.Security.Cryptography;
+using System.Threading.RateLimiting;
+using GelDispense.Service.Security;
+using GelDispense.Service.Storage;
+using Microsoft.AspNetCore.Authentication;
+using Microsoft.AspNetCore.Authentication.JwtBearer;
+
+namespace GelDispense.Service.Extensions;
+
+/// <summary>
+/// Authentication (API keys, and JWTs when <c>Auth:Jwt:Authority</c> is set), the role policies, the first admin
+/// key, and a token-bucket rate limit per key.
+/// </summary>
+public static class SecurityExtensions
+{
+    private const string BearerScheme = "Bearer";
+
+    public static IServiceCollection AddGelDispenseSecurity(this IServiceCollection services, IConfiguration configuration)
+    {
+        var settings = AuthSettings.From(configuration);
+        services.AddSingleton(settings);
+        services.AddSingleton(RandomNumberGenerator.Create());
+        services.AddSingleton<ApiKeyStore>();
+        services.AddSingleton<ApiKeyIssuer>();
+        services.AddHostedService<BootstrapKeyHostedService>();
+
+        var jwt = !string.IsNullOrWhiteSpace(settings.Jwt.Authority);
+        var authentication = services.AddAuthentication(BearerScheme)
+            .AddPolicyScheme(BearerScheme, "API key or JWT", options => options.ForwardDefaultSelector = context =>
+                jwt && !LooksLikeApiKey(context.Request.Headers.Authorization.ToString())
+                    ? JwtBearerDefaults.AuthenticationScheme
+                    : ApiKeyAuthenticationHandler.SchemeName)
+            .AddScheme<AuthenticationSchemeOptions, ApiKeyAuthenticationHandler>(ApiKeyAuthenticationHandler.SchemeName, null);
+        if (jwt)
+        {
+            authentication.AddJwtBearer(options =>
+            {
+                options.Authority = settings.Jwt.Authority;
+                options.Audience = settings.Jwt.Audience;
+                options.MapInboundClaims = false;
+                options.TokenValidationParameters.RoleClaimType = GelDispenseClaims.Role;
+                options.TokenValidationParameters.NameClaimType = GelDispenseClaims.Subject;
+            });
+        }
+
+        services.AddAuthorization(Policies.Add);
+        services.AddRateLimiter(options =>
+        {
+            options.RejectionStatusCode = StatusCodes.Status429TooManyRequests;
+            options.GlobalLimiter = PartitionedRateLimiter.Create<HttpContext, string>(context => Partition(context, settings));
+        });
+        return services;
+    }
+
+    public static WebApplication UseGelDispenseSecurity(this WebApplication app)
+    {
+        app.UseAuthentication();
+        // After authentication, so the limiter partitions by the key the caller proved, not by a header anyone can send.
+        app.UseRateLimiter();
+        app.UseAuthorization();
+        return app;
+    }
+
+    private static bool LooksLikeApiKey(string header) =>
+        header.StartsWith("Bearer " + ApiKeySecret.Marker, StringComparison.OrdinalIgnoreCase);
+
+    private static RateLimitPartition<string> Partition(HttpContext context, AuthSettings settings)
+    {
+        if (settings.PermitsPerSecondPerKey <= 0)
+        {
+            return RateLimitPartition.GetNoLimiter("off");
+        }
+
+        var actor = GelDispenseClaims.Actor(context.User);
+        var partition = actor.Length > 0 ? actor : "peer:" + (context.Connection.RemoteIpAddress?.ToString() ?? "in-process");
+        return RateLimitPartition.GetTokenBucketLimiter(partition, _ => new TokenBucketRateLimiterOptions
+        {
+            TokenLimit = Math.Max(settings.BurstPerKey, settings.PermitsPerSecondPerKey),
+            TokensPerPeriod = settings.PermitsPerSecondPerKey,
+            ReplenishmentPeriod = TimeSpan.FromSeconds(1),
+            QueueLimit = 0,
+            AutoReplenishment = true,
+        });
+    }
+}

@@ -1,0 +1,34 @@
+using Microsoft.AspNetCore.Authorization;
+
+namespace GelDispense.Service.Security;
+
+/// <summary>The authorization policies every route names, and which roles each admits.</summary>
+public static class Policies
+{
+    /// <summary>Issue, list and revoke keys.</summary>
+    public const string ManageKeys = "keys.manage";
+
+    /// <summary>Add reagents and lots to the catalog.</summary>
+    public const string WriteCatalog = "catalog.write";
+
+    /// <summary>Evaluate compositions and compute plans.</summary>
+    public const string Design = "design";
+
+    /// <summary>Start batches, record additions, complete and abort; a station key only for its own station.</summary>
+    public const string RunBatches = "batches.run";
+
+    /// <summary>Read the catalog, batches, as-made records, the CSV export and the live event stream.</summary>
+    public const string Read = "read";
+
+    public static void Add(AuthorizationOptions options)
+    {
+        options.AddPolicy(ManageKeys, p => p.RequireRole(Roles.Admin));
+        options.AddPolicy(WriteCatalog, p => p.RequireRole(Roles.Admin));
+        options.AddPolicy(Design, p => p.RequireRole(Roles.Admin, Roles.Formulator));
+        options.AddPolicy(RunBatches, p => p.RequireRole(Roles.Admin, Roles.Station));
+        options.AddPolicy(Read, p => p.RequireRole(Roles.All));
+
+        // A route that names no policy still needs a caller; only routes marked AllowAnonymous (health, ping) skip it.
+        options.FallbackPolicy = new AuthorizationPolicyBuilder().RequireAuthenticatedUser().Build();
+    }
+}

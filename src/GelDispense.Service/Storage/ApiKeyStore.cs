@@ -1,0 +1,69 @@
+using Dapper;
+
+namespace GelDispense.Service.Storage;
+
+/// <summary>The api_keys table. Rows are inserted and stamped as revoked, never deleted.</summary>
+public sealed class ApiKeyStore(IDatabase database)
+{
+    private const string Columns = "id, prefix, key_hash, role, station_id, label, created_at, expires_at, revoked_at";
+
+    static ApiKeyStore() => DefaultTypeMap.MatchNamesWithUnderscores = true;
+
+    public async Task AddAsync(ApiKeyRow row, CancellationToken cancellationToken)
+    {
+        using var turn = await database.EnterWriteAsync(cancellationToken);
+        await using var connection = await database.OpenAsync(cancellationToken);
+        await connection.ExecuteAsync(
+            $"INSERT INTO api_keys ({Columns}) VALUES (@Id, @Prefix, @KeyHash, @Role, @StationId, @Label, @CreatedAt, @ExpiresAt, @RevokedAt)", row);
+    }
+
+    /// <summary>
+    /// Adds <paramref name="row"/> only when the table is empty, in one transaction: of several replicas starting on
+    /// one new database, exactly one issues the first admin key.
+    /// </summary>
+    public async Task<bool> TryAddFirstAsync(ApiKeyRow row, CancellationToken cancellationToken)
+    {
+        using var turn = await database.EnterWriteAsync(cancellationToken);
+        await using var connection = await database.OpenAsync(cancellationToken);
+        await using var transaction = await connection.BeginTransactionAsync(cancellationToken);
+        // The event_sequence row lock serialises this check against another replica doing the same.
+        await connection.ExecuteAsync("UPDATE event_sequence SET last_seq = last_seq WHERE id = 1", transaction: transaction);
+        if (await connection.ExecuteScalarAsync<long>("SELECT COUNT(*) FROM api_keys", transaction: transaction) > 0)
+        {
+            return false;
+        }
+
+        await connection.ExecuteAsync(
+            $"INSERT INTO api_keys ({Columns}) VALUES (@Id, @Prefix, @KeyHash, @Role, @StationId, @Label, @CreatedAt, @ExpiresAt, @RevokedAt)",
+            row, transaction);
+        await transaction.CommitAsync(cancellationToken);
+        return true;
+    }
+
+    public async Task<ApiKeyRow?> FindByPrefixAsync(string prefix, CancellationToken cancellationToken)
+    {
+        await using var connection = await database.OpenAsync(cancellationToken);
+        return await connection.QuerySingleOrDefaultAsync<ApiKeyRow>($"SELECT {Columns} FROM api_keys WHERE prefix = @prefix", new { prefix });
+    }
+
+    public async Task<ApiKeyRow?> FindAsync(string id, CancellationToken cancellationToken)
+    {
+        await using var connection = await database.OpenAsync(cancellationToken);
+        return await connection.QuerySingleOrDefaultAsync<ApiKeyRow>($"SELECT {Columns} FROM api_keys WHERE id = @id", new { id });
+    }
+
+    public async Task<IReadOnlyList<ApiKeyRow>> ListAsync(CancellationToken cancellationToken)
+    {
+        await using var connection = await database.OpenAsync(cancellationToken);
+        return [.. await connection.QueryAsync<ApiKeyRow>($"SELECT {Columns} FROM api_keys ORDER BY created_at DESC, id")];
+    }
+
+    /// <summary>Stamps the revocation time once; a second revoke keeps the first time.</summary>
+    public async Task RevokeAsync(string id, DateTimeOffset at, CancellationToken cancellationToken)
+    {
+        using var turn = await database.EnterWriteAsync(cancellationToken);
+        await using var connection = await database.OpenAsync(cancellationToken);
+        await connection.ExecuteAsync(
+            "UPDATE api_keys SET revoked_at = @at WHERE id = @id AND revoked_at IS NULL", new { id, at = TimeText.Format(at) });
+    }
+}
