@@ -35,8 +35,7 @@ public sealed class AdditionSequence(Uri baseAddress, string? apiKey, string bat
         var body = new JsonObject
         {
             ["additionId"] = additionId,
-            // Protobuf JSON leaves out fields at their default, so step 0 has no "index".
-            ["stepIndex"] = (int?)step["index"] ?? 0,
+            ["stepIndex"] = (int)step["index"]!,
             ["readingG"] = (double)step["targetReadingG"]!,
             ["stable"] = true,
         };

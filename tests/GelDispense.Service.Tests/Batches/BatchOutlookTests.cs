@@ -92,7 +92,7 @@ public sealed class BatchOutlookTests(ApiHosts hosts)
 
         Assert.True((bool)result["addition"]!["withinWindow"]!);
         Assert.False((bool)result["replanned"]!);
-        Assert.Equal(0, (int?)result["planRevision"] ?? 0);
+        Assert.Equal(0, (int)result["planRevision"]!);
         Assert.Equal(1.0, (double)result["scaleFactor"]!, 12);
         Assert.Equal(batch["steps"]!.AsArray().Skip(1).Select(s => (double)s!["targetMassG"]!), result["remainingSteps"]!.AsArray().Select(s => (double)s!["targetMassG"]!));
         // On target the prediction is the plan's own composition: R = 4 by the recipe's ratios.
