@@ -40,7 +40,8 @@ public sealed class RestProblemMiddleware(RequestDelegate next, RequestLimits li
             context.Response.Body = original;
         }
 
-        if (context.Response.StatusCode < 400)
+        // A rate-limited call (429) keeps the limiter's own answer: no problem code maps to it.
+        if (context.Response.StatusCode < 400 || context.Response.StatusCode == StatusCodes.Status429TooManyRequests)
         {
             buffer.Position = 0;
             await buffer.CopyToAsync(original, context.RequestAborted);
@@ -101,6 +102,9 @@ public sealed class RestProblemMiddleware(RequestDelegate next, RequestLimits li
         var code = httpStatus switch
         {
             StatusCodes.Status404NotFound => Grpc.Core.StatusCode.NotFound,
+            // Refused by authentication or authorization before any handler ran.
+            StatusCodes.Status401Unauthorized => Grpc.Core.StatusCode.Unauthenticated,
+            StatusCodes.Status403Forbidden => Grpc.Core.StatusCode.PermissionDenied,
             StatusCodes.Status405MethodNotAllowed or StatusCodes.Status415UnsupportedMediaType => Grpc.Core.StatusCode.InvalidArgument,
             < 500 => Grpc.Core.StatusCode.InvalidArgument,
             _ => Grpc.Core.StatusCode.Internal,
@@ -108,8 +112,15 @@ public sealed class RestProblemMiddleware(RequestDelegate next, RequestLimits li
         var message = ReadStatusMessage(body) ?? (httpStatus == StatusCodes.Status404NotFound
             ? "no such route; the OpenAPI document at /swagger/v1/swagger.json lists every route"
             : $"the request was refused with HTTP {httpStatus}");
-        var title = code == Grpc.Core.StatusCode.NotFound ? "Not found." : "The request could not be read.";
-        return new ApiProblem(code, title, [new InputError("body", "", message)]);
+        return code switch
+        {
+            Grpc.Core.StatusCode.NotFound => new ApiProblem(code, "Not found.", [new InputError("body", "", message)]),
+            Grpc.Core.StatusCode.Unauthenticated => new ApiProblem(code, "Credentials missing or refused.",
+                [new InputError("Authorization", "", "send 'Authorization: Bearer <key>' with an API key in force")]),
+            Grpc.Core.StatusCode.PermissionDenied => new ApiProblem(code, "This key's role may not use this route.",
+                [new InputError("Authorization", "", "the key's role does not admit this route")]),
+            _ => new ApiProblem(code, "The request could not be read.", [new InputError("body", "", message)]),
+        };
     }
 
     private static string? ReadStatusMessage(MemoryStream body)
