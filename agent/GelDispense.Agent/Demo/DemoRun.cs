@@ -15,7 +15,7 @@ namespace GelDispense.Agent.Demo;
 /// </summary>
 public static class DemoRun
 {
-    /// <summary>Runs the demo batch; true when every addition was recorded at the service and the batch completed.</summary>
+    /// <summary>Runs the demo batch to its end and says how it ended.</summary>
     public static async Task<RunResult> RunAsync(IStationDisplay display, TextWriter output, int seed, CancellationToken cancellationToken)
     {
         var time = TimeProvider.System;
@@ -36,10 +36,10 @@ public static class DemoRun
             var stationKey = await service.IssueKeyAsync(Roles.Station, DemoScenario.StationId, cancellationToken).ConfigureAwait(false);
             using var stopSimulator = CancellationTokenSource.CreateLinkedTokenSource(cancellationToken);
             var simulating = host.RunAsync(null, stopSimulator.Token);
-            display.Note(NoteKind.Info, $"simulated balance (column format, d = 0.01 g) on {port.Describe}; technician over-pours step 1 by 3 %");
+            display.Note(NoteKind.Info, $"simulated balance (column format, d = 1 mg) on {port.Describe}; technician over-pours step 1 by 3 %");
             try
             {
-                await using var session = StationSession.Open(DemoScenario.StationConfig(balancePath, service.Address) with { ApiKey = stationKey }, Path.Combine(directory.FullName, "station", "journal.db"), new ServiceLinkSettings(), time);
+                await using var session = StationSession.Open(DemoScenario.StationConfig(balancePath, service.Address, stationKey), Path.Combine(directory.FullName, "station", "journal.db"), new ServiceLinkSettings(), time);
                 var start = new BatchStart(DemoScenario.Recipe(), null, DemoScenario.Balance, DemoScenario.Pipette);
                 var batch = await session.StartAsync(start, display, cancellationToken).ConfigureAwait(false);
                 var settings = new RunSettings { TareCommand = DemoScenario.TareCommand, Lots = DemoScenario.Lots, ReadabilityG = DemoScenario.Simulator.ReadabilityG };

@@ -6,9 +6,9 @@ namespace GelDispense.Agent.Demo;
 
 /// <summary>
 /// Our own demo: the NA-7 hybrid monolith sol (TEOS and MTMS in methanol, acid then base catalysis) made at station
-/// north-annex-bench-2 on a 2.2 kg top-loading balance read to 0.01 g, with a 2 mL pipette for the small base
-/// addition, from our own reagent lots. The technician over-pours the TEOS by 3 %; the service re-plans the rest of
-/// the batch around it.
+/// north-annex-bench-2 on a 620 g precision balance read to 1 mg, from our own reagent lots; the station's 2 mL
+/// pipette is offered to the planner, which keeps every step on the balance since it holds each window. The
+/// technician over-pours the TEOS by 3 %; the service re-plans the rest of the batch around it.
 /// </summary>
 public static class DemoScenario
 {
@@ -31,15 +31,15 @@ public static class DemoScenario
         ["nh3-1m"] = "NA-NH3-1M-24-044",
     };
 
-    public static BalanceProfile Balance => new() { Id = "NA-BAL-2", ReadabilityG = 0.01, RepeatabilityG = 0.02, CapacityG = 2200 };
+    public static BalanceProfile Balance => new() { Id = "NA-BAL-2", ReadabilityG = 0.001, RepeatabilityG = 0.0008, CapacityG = 620 };
 
     public static PipetteProfile Pipette => new() { Id = "NA-PIP-2000", NominalVolumeUl = 2000, MinVolumeUl = 200 };
 
     /// <summary>A quick balance: settles in a fraction of a second and streams fifty lines a second.</summary>
     public static SimulatorSettings Simulator => new()
     {
-        ReadabilityG = 0.01,
-        CapacityG = 2200,
+        ReadabilityG = 0.001,
+        CapacityG = 620,
         SettlingTimeConstant = TimeSpan.FromMilliseconds(80),
         SampleInterval = TimeSpan.FromMilliseconds(20),
         TareCommand = TareCommand,
@@ -58,15 +58,16 @@ public static class DemoScenario
     }
 
     /// <summary>The station config for the demo: the simulated balance on its pty link, the embedded service.</summary>
-    public static StationConfig StationConfig(string balancePath, Uri serviceAddress) => new()
+    public static StationConfig StationConfig(string balancePath, Uri serviceAddress, string? apiKey, double readabilityG = 0.001) => new()
     {
         ServiceAddress = serviceAddress.ToString(),
+        ApiKey = apiKey,
         StationId = StationId,
         Balance = new BalanceConfig
         {
             Port = balancePath,
             Format = "column",
-            ReadabilityG = 0.01,
+            ReadabilityG = readabilityG,
             Commands = new CommandsConfig { Tare = TareCommand },
             Serial = new SerialConfig { ReadTimeoutMs = 100 },
         },

@@ -24,9 +24,6 @@ public sealed class FollowingTechnician(Func<StationView?> screen, IReadOnlyDict
 
     public bool Finished => _doneStep >= 0 && screen() is { StepIndex: < 0 };
 
-    /// <summary>How many pours were started (each step once, unless the screen asks for the same step again).</summary>
-    public int PoursStarted { get; private set; }
-
     public double Pour(TimeSpan dt)
     {
         if (!_pouring && !TryStart(dt))
@@ -50,7 +47,7 @@ public sealed class FollowingTechnician(Func<StationView?> screen, IReadOnlyDict
     private bool TryStart(TimeSpan dt)
     {
         var view = screen();
-        if (view is not { Phase: StepPhase.Adding, StepIndex: >= 0, TargetNetG: { } targetG } || view.StepIndex == _doneStep)
+        if (view is not { Phase: StepPhase.Adding, StepIndex: >= 0, TargetNetG: { } targetG } || (view.StepIndex == _doneStep && !ShortOfWindow(view)))
         {
             _waited = TimeSpan.Zero;
             return false;
@@ -64,10 +61,13 @@ public sealed class FollowingTechnician(Func<StationView?> screen, IReadOnlyDict
 
         StepIndex = view.StepIndex;
         _byVolume = view.VolumeToDeliverMl is not null;
-        _aimG = Math.Max(0, (targetG * (1 + overPourByStep.GetValueOrDefault(view.StepIndex))) - Math.Max(0, view.LiveNetG ?? 0));
+        var overPour = view.StepIndex == _doneStep ? 0 : overPourByStep.GetValueOrDefault(view.StepIndex);
+        _aimG = Math.Max(0, (targetG * (1 + overPour)) - Math.Max(0, view.LiveNetG ?? 0));
         _pouredG = 0;
         _pouring = true;
-        PoursStarted++;
         return true;
     }
+
+    private static bool ShortOfWindow(StationView view) =>
+        view is { ReadingState: "stable", VolumeToDeliverMl: null, LiveNetG: { } net, LowNetG: { } low } && net < low;
 }

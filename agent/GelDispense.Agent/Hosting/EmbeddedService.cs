@@ -12,12 +12,12 @@ namespace GelDispense.Agent.Hosting;
 /// <summary>
 /// The GelDispense service running inside this process on a loopback port over plaintext HTTP/2, on a SQLite
 /// file: for the demo, which must run on a fresh clone with nothing else started, and for tests that stop the
-/// service mid-batch and start it again on the same file. It is wired exactly as the service's Program.cs does,
-/// through the service's own extension methods.
+/// service mid-batch and start it again on the same file. It is built by the same call as the service's Program.cs.
 /// </summary>
 public sealed class EmbeddedService : IAsyncDisposable
 {
     private readonly WebApplication _app;
+    private bool _disposed;
 
     private EmbeddedService(WebApplication app, Uri address)
     {
@@ -55,12 +55,7 @@ public sealed class EmbeddedService : IAsyncDisposable
             ["Serilog:MinimumLevel:Override:Microsoft"] = logLevel,
             ["Serilog:MinimumLevel:Override:Grpc"] = logLevel,
         });
-        builder.AddGelDispenseLogging();
-        builder.AddGelDispenseEndpoints();
-        builder.Services.AddGelDispenseServices(builder.Configuration);
-        var app = builder.Build();
-        app.UseGelDispensePipeline();
-        app.MapGelDispenseEndpoints();
+        var app = builder.BuildGelDispense();
         await app.StartAsync(cancellationToken).ConfigureAwait(false);
         var bound = app.Services.GetRequiredService<IServer>().Features.Get<IServerAddressesFeature>()!.Addresses.First();
         return new EmbeddedService(app, new Uri(bound.Replace("[::]", "127.0.0.1", StringComparison.Ordinal)));
@@ -75,6 +70,12 @@ public sealed class EmbeddedService : IAsyncDisposable
 
     public async ValueTask DisposeAsync()
     {
+        if (_disposed)
+        {
+            return;
+        }
+
+        _disposed = true;
         await StopAsync().ConfigureAwait(false);
         await _app.DisposeAsync().ConfigureAwait(false);
 

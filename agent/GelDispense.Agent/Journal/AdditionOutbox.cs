@@ -6,7 +6,8 @@ namespace GelDispense.Agent.Journal;
 /// <summary>
 /// Journal first, then the service, always in journal order. <see cref="Journal(NewAddition)"/> makes an addition
 /// durable before any send; <see cref="FlushAsync"/> offers every pending entry, oldest first, and stops at the
-/// first one the service cannot be reached for, so a later addition never overtakes an earlier one. Each entry is
+/// first one the service cannot be reached for (or refuses the station's key for), so a later addition never
+/// overtakes an earlier one. Each entry is
 /// sent with its own addition id every time; the service records it once and answers repeats with the first
 /// result, so a reply lost in transit costs nothing but a repeat. Flushes never overlap.
 /// </summary>
@@ -39,6 +40,10 @@ public sealed class AdditionOutbox(AdditionJournal journal, ServiceLink service)
                 catch (Exception ex) when (ServiceFaults.IsUnreachable(ex) && !cancellationToken.IsCancellationRequested)
                 {
                     return new FlushReport(deliveries, ServiceFaults.Describe(ex), pending.Count - i);
+                }
+                catch (RpcException ex) when (ServiceFaults.IsAccessRefused(ex))
+                {
+                    return new FlushReport(deliveries, $"the service refuses this station's key: {ServiceFaults.Describe(ex)}", pending.Count - i);
                 }
                 catch (RpcException ex) when (ex.StatusCode != StatusCode.Cancelled)
                 {

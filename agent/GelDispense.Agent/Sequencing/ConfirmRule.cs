@@ -7,7 +7,10 @@ namespace GelDispense.Agent.Sequencing;
 /// The one gate for confirming an addition. Never on a reading that is unstable, overloaded, underloaded or in
 /// error, nor while the balance link is down (a reading buffered before a hang-up is not the pan now). In auto
 /// mode a stable reading below the window means "keep adding"; inside it confirms; past it confirms too, since an
-/// over-pour is what went in and must be recorded. In key mode the technician decides, on a stable reading.
+/// over-pour is what went in and must be recorded. A pipette step is one delivery of a set volume that the balance
+/// weighs: it confirms once a stable reading shows the delivery has arrived (half the target or more), wherever it
+/// lies, since waiting for a coarse balance to agree would ask for a second stroke. In key mode the technician
+/// decides, on a stable reading.
 /// </summary>
 public static class ConfirmRule
 {
@@ -51,6 +54,13 @@ public static class ConfirmRule
             return keyPressed
                 ? new ConfirmDecision(true, netG, position, "confirmed by key")
                 : ConfirmDecision.Hold(position == WindowPosition.Below ? "stable, below the window: keep adding or press Enter" : "stable: press Enter to confirm", netG, position);
+        }
+
+        if (window.ByVolume)
+        {
+            return netG < 0.5 * window.TargetReadingG
+                ? ConfirmDecision.Hold("deliver the volume with the pipette", netG, position)
+                : new ConfirmDecision(true, netG, position, "pipette delivery weighed");
         }
 
         return position == WindowPosition.Below

@@ -1,3 +1,4 @@
+using Google.Rpc;
 using Grpc.Core;
 using Polly.CircuitBreaker;
 
@@ -13,14 +14,23 @@ public static class ServiceFaults
     public static bool IsTransient(RpcException ex) =>
         ex.StatusCode is StatusCode.Unavailable or StatusCode.DeadlineExceeded or StatusCode.ResourceExhausted;
 
+    /// <summary>
+    /// The service refuses the caller, not the request: a missing, wrong or revoked key, or a key for another station.
+    /// Nothing about the addition is wrong, so it must stay pending until the key is put right.
+    /// </summary>
+    public static bool IsAccessRefused(RpcException ex) =>
+        ex.StatusCode is StatusCode.Unauthenticated or StatusCode.PermissionDenied;
+
     /// <summary>True when the call never got a considered answer: a transient status after retries, or an open circuit.</summary>
     public static bool IsUnreachable(Exception ex) =>
         ex is BrokenCircuitException || (ex is RpcException rpc && IsTransient(rpc));
 
-    /// <summary>A short reason for the display and the log.</summary>
+    /// <summary>A short reason for the display and the log, with the service's field violations (field, value, reason) when it sent them.</summary>
     public static string Describe(Exception ex) => ex switch
     {
         BrokenCircuitException => "the service failed repeatedly; calls are paused for a moment",
+        RpcException rpc when rpc.GetRpcStatus()?.GetDetail<BadRequest>() is { FieldViolations.Count: > 0 } bad =>
+            $"{rpc.StatusCode}: {string.Join("; ", bad.FieldViolations.Select(v => $"{v.Field}: {v.Description}"))}",
         RpcException rpc => $"{rpc.StatusCode}: {rpc.Status.Detail}",
         _ => ex.Message,
     };

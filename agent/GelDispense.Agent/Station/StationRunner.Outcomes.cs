@@ -35,7 +35,7 @@ public sealed partial class StationRunner
                 RecordLocally(recording.Step, entry);
                 break;
             default:
-                display.Note(NoteKind.Warning, $"service unreachable ({report.UnreachableBecause}): the addition waits in the journal; working offline");
+                display.Note(NoteKind.Warning, $"not sent ({report.StoppedBecause}): the addition waits in the journal; working offline");
                 RecordLocally(recording.Step, entry);
                 break;
         }
@@ -166,9 +166,9 @@ public sealed partial class StationRunner
                 display.Finish(asMade, _progress.RecipeName, "recorded by the service");
                 return new RunResult(_progress.BatchId, true, completed, 0, asMade, _progress.Additions);
             }
-            catch (Exception ex) when (ServiceFaults.IsUnreachable(ex))
+            catch (Exception ex) when (ServiceFaults.IsUnreachable(ex) || ex is Grpc.Core.RpcException)
             {
-                display.Note(NoteKind.Warning, $"the service went away at the end ({ServiceFaults.Describe(ex)})");
+                display.Note(NoteKind.Warning, $"the service did not give the as-made record at the end ({ServiceFaults.Describe(ex)})");
             }
         }
 

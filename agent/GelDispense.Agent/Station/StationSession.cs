@@ -5,6 +5,7 @@ using GelDispense.Agent.Service;
 using GelDispense.Chemistry.Errors;
 using GelDispense.Contracts.V1;
 using Google.Protobuf;
+using Grpc.Core;
 using Grpc.Net.Client;
 
 namespace GelDispense.Agent.Station;
@@ -58,7 +59,7 @@ public sealed class StationSession : IAsyncDisposable
         if (replay.Deliveries.Count > 0 || !replay.Complete)
         {
             display.Note(replay.Complete ? NoteKind.Good : NoteKind.Warning,
-                $"journal replay on start: {replay.Deliveries.Count} sent, {replay.StillPending} still pending{(replay.Complete ? "" : $" ({replay.UnreachableBecause})")}");
+                $"journal replay on start: {replay.Deliveries.Count} sent, {replay.StillPending} still pending{(replay.Complete ? "" : $" ({replay.StoppedBecause})")}");
         }
 
         if (start.Recipe is { } recipe)
@@ -73,6 +74,10 @@ public sealed class StationSession : IAsyncDisposable
                 throw new InvalidInputException("serviceAddress", Config.ServiceAddress,
                     $"a new batch needs the service, which cannot be reached ({ServiceFaults.Describe(ex)}); a batch already started can be resumed offline with --batch");
             }
+            catch (RpcException ex)
+            {
+                throw Refused(ex, "--recipe", recipe.Name);
+            }
         }
 
         var id = start.BatchId!;
@@ -85,6 +90,10 @@ public sealed class StationSession : IAsyncDisposable
             display.Note(NoteKind.Warning, $"service unreachable ({ServiceFaults.Describe(ex)}): resuming batch {id} from the journal's copy");
             return JsonParser.Default.Parse<Batch>(saved);
         }
+        catch (RpcException ex) when (!ServiceFaults.IsUnreachable(ex))
+        {
+            throw Refused(ex, "--batch", id);
+        }
     }
 
     /// <summary>Runs the batch at the balance until every step is made (or the technician stops).</summary>
@@ -95,6 +104,11 @@ public sealed class StationSession : IAsyncDisposable
         started?.Invoke(runner);
         return await runner.RunAsync(batch, cancellationToken).ConfigureAwait(false);
     }
+
+    /// <summary>The service's refusal as a field error the command line can print: the key, or what was asked for.</summary>
+    private InvalidInputException Refused(RpcException ex, string field, string value) => ServiceFaults.IsAccessRefused(ex)
+        ? new InvalidInputException("apiKey", Config.ApiKey is null ? "(none)" : "(given)", $"the service refuses this station's key: {ServiceFaults.Describe(ex)}")
+        : new InvalidInputException(field, value, $"the service refused it: {ServiceFaults.Describe(ex)}");
 
     public ValueTask DisposeAsync()
     {
