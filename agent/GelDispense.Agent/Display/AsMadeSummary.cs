@@ -26,7 +26,7 @@ public sealed record AsMadeSummary(string Heading, IReadOnlyList<string> Totals,
             .OrderBy(d => d.Quantity switch { "hydrolysisRatio" => 0, "oxideDensityGPerMl" => 1, _ => 2 })
             .Select(d => new[]
             {
-                Label(d.Quantity), F($"{d.Nominal:0.#####}"), F($"{d.Actual:0.#####}"), F($"{d.DeviationPct:+0.00;-0.00} %"),
+                Label(d.Quantity), F($"{d.Nominal:0.#####}"), F($"{d.Actual:0.#####}"), $"{Grams.Signed(d.DeviationPct, 2)} %",
                 d.HasTolerancePct ? F($"± {d.TolerancePct:0.##} %") : "—", d.WithinTolerance ? "OK" : "OUT",
             }).ToArray();
         var footer = new List<string>

@@ -134,7 +134,7 @@ public sealed class LiveConsoleDisplay : IStationDisplay
 
             if (v.DriftGPerMin is { } slope)
             {
-                yield return string.Create(CultureInfo.InvariantCulture, $"[yellow]drift {slope * 1000:+0.0;-0.0} mg/min: evaporation? cover the vessel and confirm promptly[/]");
+                yield return $"[yellow]drift {Grams.Signed(slope * 1000, 1)} mg/min: evaporation? cover the vessel and confirm promptly[/]";
             }
 
             foreach (var caution in v.Cautions)

@@ -59,7 +59,7 @@ public sealed class PlainLogDisplay(TextWriter output, TimeProvider time, TimeSp
         }
 
         var d = v.ReadabilityG;
-        var drift = v.DriftGPerMin is { } slope ? string.Create(CultureInfo.InvariantCulture, $", DRIFT {slope * 1000:+0.0;-0.0} mg/min") : "";
+        var drift = v.DriftGPerMin is { } slope ? $", DRIFT {Grams.Signed(slope * 1000, 1)} mg/min" : "";
         var volume = v.VolumeToDeliverMl is { } ml
             ? string.Create(CultureInfo.InvariantCulture, $" deliver {ml * 1000:0} µL (now {v.LiveVolumeMl * 1000 ?? 0:0} µL)")
             : "";

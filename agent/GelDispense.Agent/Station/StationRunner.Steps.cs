@@ -69,7 +69,7 @@ public sealed partial class StationRunner
         if (verdict.Drifting && !_driftNoted && _machine.Window is not null)
         {
             _driftNoted = true;
-            display.Note(NoteKind.Warning, Display.Grams.Number(verdict.Drift!.SlopeGPerMin * 1000, "+0.0;-0.0") +
+            display.Note(NoteKind.Warning, Display.Grams.Signed(verdict.Drift!.SlopeGPerMin * 1000, 1) +
                 " mg/min drift on the balance: evaporation? Cover the vessel and confirm promptly.");
         }
     }
