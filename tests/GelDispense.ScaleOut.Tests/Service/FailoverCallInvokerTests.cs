@@ -1,0 +1,79 @@
+using GelDispense.Agent.Service;
+using GelDispense.ScaleOut.Tests.ScaleOut;
+using GelDispense.ScaleOut.Tests.Support;
+using GelDispense.Contracts.V1;
+using Grpc.Net.Client;
+
+namespace GelDispense.ScaleOut.Tests.Service;
+
+/// <summary>
+/// The agent's service link given both replicas' addresses: replica A is killed while the station is still adding,
+/// and the rest of the batch goes through B on the same database.
+/// </summary>
+[Collection(ScaleOutCollection.Name)]
+public sealed class FailoverCallInvokerTests(PostgresCluster cluster)
+{
+    private const int Additions = 20;
+
+    private static readonly ServiceLinkSettings Quick = new()
+    {
+        CallDeadline = TimeSpan.FromSeconds(3),
+        RetryAttempts = 3,
+        RetryFirstDelay = TimeSpan.FromMilliseconds(50),
+        RetryMaxDelay = TimeSpan.FromMilliseconds(200),
+        ConnectTimeout = TimeSpan.FromSeconds(1),
+        InitialReconnectBackoff = TimeSpan.FromMilliseconds(100),
+        MaxReconnectBackoff = TimeSpan.FromMilliseconds(500),
+    };
+
+    [Fact]
+    public async Task When_replica_A_dies_mid_batch_the_link_carries_on_through_B_and_no_addition_is_lost_or_doubled()
+    {
+        await using var pair = await ReplicaPair.StartAsync(cluster.Server, "scaleout_failover");
+        using var invoker = new FailoverCallInvoker([pair.A.Grpc, pair.B.Grpc], Quick);
+        var link = new ServiceLink(invoker, "A then B", Quick, TimeProvider.System, pair.AdminKey);
+        var batch = await link.CreateBatchAsync(TwoReplicasTests.DemoRequest(), default);
+        var planned = PlannedAddition.Split(batch, Additions, "failover");
+        var halfway = new TaskCompletionSource(TaskCreationOptions.RunContinuationsAsynchronously);
+        var servedBy = new List<Uri>();
+
+        // The station keeps adding while A is killed, so a call may be in flight to A when it dies.
+        var station = Task.Run(async () =>
+        {
+            foreach (var addition in planned)
+            {
+                servedBy.Add(invoker.Current);
+                await link.RecordAdditionAsync(new RecordAdditionRequest
+                {
+                    BatchId = batch.Id, AdditionId = addition.AdditionId, StepIndex = addition.StepIndex, ReadingG = addition.ReadingG, Stable = true, LotId = addition.LotId,
+                }, default);
+                if (servedBy.Count == Additions / 2)
+                {
+                    halfway.SetResult();
+                }
+            }
+        });
+        await halfway.Task;
+        await pair.A.KillAsync();
+        var killedAt = DateTime.UtcNow;
+        await station;
+        Console.WriteLine($"failover: the second half of the batch went through B {(DateTime.UtcNow - killedAt).TotalSeconds:0.00} s after A was killed");
+
+        Assert.Equal(pair.B.Grpc, invoker.Current);
+        Assert.Equal(pair.A.Grpc, servedBy[0]);
+        Assert.Equal(pair.B.Grpc, servedBy[^1]);
+        Assert.Equal(ServiceStatus.Online, link.Status);
+        using var direct = GrpcChannel.ForAddress(pair.B.Grpc);
+        var recorded = await new BatchService.BatchServiceClient(direct)
+            .GetBatchAsync(new GetBatchRequest { Id = batch.Id }, new Grpc.Core.Metadata { { "authorization", "Bearer " + pair.AdminKey } });
+        Assert.Equal(planned.Select(a => a.AdditionId), recorded.Additions.Select(a => a.AdditionId));
+    }
+
+    [Fact]
+    public void A_link_without_any_address_is_refused_naming_the_field()
+    {
+        var ex = Assert.Throws<ArgumentException>(() => new FailoverCallInvoker([], Quick));
+
+        Assert.Contains("addresses", ex.Message, StringComparison.Ordinal);
+    }
+}
