@@ -9,8 +9,8 @@ using Microsoft.AspNetCore.Authorization;
 
 namespace GelDispense.Service.Api;
 
-/// <summary>Batches at stations: create, read, additions, as-made, complete/abort, the LIMS list, CSV export and the live watch stream.</summary>
-public sealed class BatchApi(Planner planner, BatchLedger ledger, AdditionRecorder additions, BatchEventSignal signal, RequestLog log) : BatchService.BatchServiceBase
+/// <summary>Batches at stations: create, read, additions, as-made, complete/abort, the LIMS list, CSV export, the live watch stream and the audit check.</summary>
+public sealed class BatchApi(Planner planner, BatchLedger ledger, AdditionRecorder additions, AuditVerifier audit, BatchEventSignal signal, RequestLog log) : BatchService.BatchServiceBase
 {
     /// <summary>How often a watcher re-reads the event log for events written by other replicas.</summary>
     public static readonly TimeSpan WatchPollInterval = TimeSpan.FromSeconds(1);
@@ -19,9 +19,10 @@ public sealed class BatchApi(Planner planner, BatchLedger ledger, AdditionRecord
     public override async Task<Batch> CreateBatch(CreateBatchRequest request, ServerCallContext context)
     {
         log.Station(request.StationId);
-        Caller.From(context.GetHttpContext().User).RequireStation(request.StationId.Trim(), "stationId");
+        var caller = Caller.From(context.GetHttpContext().User);
+        caller.RequireStation(request.StationId.Trim(), "stationId");
         var plan = await planner.PlanAsync(request.Recipe, request.Balance, request.Pipette, request.Air, context.CancellationToken);
-        var batch = await ledger.CreateAsync(request, plan, context.CancellationToken);
+        var batch = await ledger.CreateAsync(request, plan, caller, context.CancellationToken);
         log.Batch(batch.Id);
         return batch;
     }
@@ -52,7 +53,7 @@ public sealed class BatchApi(Planner planner, BatchLedger ledger, AdditionRecord
     {
         log.Batch(request.Id);
         await RequireOwnBatchAsync(request.Id, context);
-        return await ledger.CloseAsync(request.Id, BatchStatus.Completed, "", context.CancellationToken);
+        return await ledger.CloseAsync(request.Id, BatchStatus.Completed, "", Caller.From(context.GetHttpContext().User), context.CancellationToken);
     }
 
     [Authorize(Policy = Policies.RunBatches)]
@@ -60,7 +61,7 @@ public sealed class BatchApi(Planner planner, BatchLedger ledger, AdditionRecord
     {
         log.Batch(request.Id);
         await RequireOwnBatchAsync(request.Id, context);
-        return await ledger.CloseAsync(request.Id, BatchStatus.Aborted, request.Reason, context.CancellationToken);
+        return await ledger.CloseAsync(request.Id, BatchStatus.Aborted, request.Reason, Caller.From(context.GetHttpContext().User), context.CancellationToken);
     }
 
     [Authorize(Policy = Policies.Read)]
@@ -116,6 +117,13 @@ public sealed class BatchApi(Planner planner, BatchLedger ledger, AdditionRecord
 
             await signal.WaitAsync(batchId, WatchPollInterval, context.CancellationToken);
         }
+    }
+
+    [Authorize(Policy = Policies.ReadAudit)]
+    public override Task<VerifyBatchAuditResponse> VerifyBatchAudit(VerifyBatchAuditRequest request, ServerCallContext context)
+    {
+        log.Batch(request.BatchId);
+        return audit.VerifyAsync(request.BatchId, context.CancellationToken);
     }
 
     /// <summary>A station caller may close only its own station's batches; others skip the extra read.</summary>

@@ -88,7 +88,8 @@ public sealed class AdditionRecorder(BatchLedger ledger, BatchStore store, Batch
             {
                 BatchId = head.Id, Type = BatchEventType.AdditionRecorded, OccurredAt = addition.RecordedAt, Addition = addition, Status = BatchStatus.InProgress,
             };
-            var outcome = await store.TryAppendAdditionAsync(stored, head.Version, replan, JsonFormatter.Default.Format(recorded), at, cancellationToken);
+            var outcome = await store.TryAppendAdditionAsync(stored, head.Version, replan, JsonFormatter.Default.Format(recorded), at,
+                new EventAudit(caller.ActorId, head.StationId), cancellationToken);
             if (outcome.Written)
             {
                 signal.Notify(head.Id);

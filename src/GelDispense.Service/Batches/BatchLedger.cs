@@ -3,6 +3,7 @@ using System.Text;
 using GelDispense.Chemistry.Errors;
 using GelDispense.Contracts.V1;
 using GelDispense.Service.Errors;
+using GelDispense.Service.Security;
 using GelDispense.Service.Storage;
 using Google.Protobuf;
 using Google.Protobuf.WellKnownTypes;
@@ -19,7 +20,7 @@ public sealed class BatchLedger(BatchStore store, BatchEventSignal signal, TimeP
     public const int MaxPageSize = 200;
     public const int DefaultPageSize = 50;
 
-    public async Task<Batch> CreateAsync(CreateBatchRequest request, DispensingPlan plan, CancellationToken cancellationToken)
+    public async Task<Batch> CreateAsync(CreateBatchRequest request, DispensingPlan plan, Caller caller, CancellationToken cancellationToken)
     {
         if (request.StationId.Trim().Length is 0 or > 64)
         {
@@ -34,7 +35,7 @@ public sealed class BatchLedger(BatchStore store, BatchEventSignal signal, TimeP
         var created = new BatchEvent { BatchId = id, Type = BatchEventType.Created, OccurredAt = Timestamp.FromDateTimeOffset(at), Status = BatchStatus.InProgress };
         var batch = new NewBatch(id, request.StationId.Trim(), request.Recipe.Name.Trim(), recipeBody, Hash(recipeBody),
             JsonFormatter.Default.Format(setup), JsonFormatter.Default.Format(plan), BatchMapping.Stored(BatchStatus.InProgress),
-            BatchEventType.Created.ToString(), JsonFormatter.Default.Format(created), at);
+            BatchEventType.Created.ToString(), JsonFormatter.Default.Format(created), at, caller.ActorId);
         for (var attempt = 0; !await store.TryCreateAsync(batch, cancellationToken); attempt++)
         {
             await PauseAsync(attempt, cancellationToken);
@@ -54,7 +55,7 @@ public sealed class BatchLedger(BatchStore store, BatchEventSignal signal, TimeP
         await store.FindAsync(id, cancellationToken) ?? throw ApiException.NotFound(field, id, "batch");
 
     /// <summary>Completes or aborts an in-progress batch.</summary>
-    public async Task<Batch> CloseAsync(string id, BatchStatus status, string reason, CancellationToken cancellationToken)
+    public async Task<Batch> CloseAsync(string id, BatchStatus status, string reason, Caller caller, CancellationToken cancellationToken)
     {
         if (reason.Length > 500)
         {
@@ -68,7 +69,8 @@ public sealed class BatchLedger(BatchStore store, BatchEventSignal signal, TimeP
             RequireInProgress(row.Id, row.Status, "id");
             var at = time.GetUtcNow();
             var body = JsonFormatter.Default.Format(new BatchEvent { BatchId = row.Id, Type = type, OccurredAt = Timestamp.FromDateTimeOffset(at), Status = status });
-            var outcome = await store.TrySetStatusAsync(row.Id, row.Version, BatchMapping.Stored(status), reason, type.ToString(), body, at, cancellationToken);
+            var outcome = await store.TrySetStatusAsync(row.Id, row.Version, BatchMapping.Stored(status), reason, type.ToString(), body, at,
+                new EventAudit(caller.ActorId, row.StationId), cancellationToken);
             if (outcome.Written)
             {
                 signal.Notify(row.Id);

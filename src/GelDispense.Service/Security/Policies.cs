@@ -20,6 +20,9 @@ public static class Policies
     /// <summary>Read the catalog, batches, as-made records, the CSV export and the live event stream.</summary>
     public const string Read = "read";
 
+    /// <summary>Verify a batch's audit trail: for auditors (lims) and admins, not for those whose writes it checks.</summary>
+    public const string ReadAudit = "audit.read";
+
     public static void Add(AuthorizationOptions options)
     {
         options.AddPolicy(ManageKeys, p => p.RequireRole(Roles.Admin));
@@ -27,6 +30,7 @@ public static class Policies
         options.AddPolicy(Design, p => p.RequireRole(Roles.Admin, Roles.Formulator));
         options.AddPolicy(RunBatches, p => p.RequireRole(Roles.Admin, Roles.Station));
         options.AddPolicy(Read, p => p.RequireRole(Roles.All));
+        options.AddPolicy(ReadAudit, p => p.RequireRole(Roles.Admin, Roles.Lims));
 
         // A route that names no policy still needs a caller; only routes marked AllowAnonymous (health, ping) skip it.
         options.FallbackPolicy = new AuthorizationPolicyBuilder().RequireAuthenticatedUser().Build();

@@ -41,7 +41,11 @@ public sealed class BatchStore(IDatabase database)
                 INSERT INTO batches (id, station_id, status, recipe_revision_id, setup, plan, abort_reason, created_at, updated_at, version, last_event_seq)
                 VALUES (@Id, @StationId, @Status, @revisionId, @Setup, @Plan, '', @at, @at, 1, @seq)
                 """, new { batch.Id, batch.StationId, batch.Status, revisionId, batch.Setup, batch.Plan, at = TimeText.Format(batch.At), seq }, transaction);
-            await EventLog.AppendAsync(connection, transaction, seq, batch.Id, batch.EventType, batch.EventBody, batch.At);
+            await EventLog.AppendAsync(connection, transaction, new EventRow
+            {
+                Seq = seq, BatchId = batch.Id, Type = batch.EventType, Body = batch.EventBody, OccurredAt = TimeText.Format(batch.At),
+                ActorKeyId = batch.ActorKeyId, StationId = batch.StationId,
+            }, null);
             await transaction.CommitAsync(cancellationToken);
             return true;
         }
@@ -120,8 +124,9 @@ public sealed class BatchStore(IDatabase database)
     /// is appended as the batch's next plan revision and put in force; earlier revisions are never touched.
     /// </summary>
     public Task<WriteOutcome> TryAppendAdditionAsync(
-        AdditionRow addition, long expectedVersion, PlanRevisionRow? replan, string eventBody, DateTimeOffset at, CancellationToken cancellationToken) =>
-        WriteVersionedAsync(addition.BatchId, expectedVersion, at, "ADDITION_RECORDED", eventBody, cancellationToken, async (connection, transaction) =>
+        AdditionRow addition, long expectedVersion, PlanRevisionRow? replan, string eventBody, DateTimeOffset at, EventAudit audit,
+        CancellationToken cancellationToken) =>
+        WriteVersionedAsync(addition.BatchId, expectedVersion, at, "ADDITION_RECORDED", eventBody, audit, addition, cancellationToken, async (connection, transaction) =>
         {
             await connection.ExecuteAsync("""
                 INSERT INTO additions (batch_id, addition_id, ordinal, step_index, reading_g, stable, source, lot_id, true_mass_g,
@@ -143,8 +148,8 @@ public sealed class BatchStore(IDatabase database)
     /// <summary>Moves the batch to another status if it is still at <paramref name="expectedVersion"/>.</summary>
     public Task<WriteOutcome> TrySetStatusAsync(
         string batchId, long expectedVersion, string status, string abortReason, string eventType, string eventBody, DateTimeOffset at,
-        CancellationToken cancellationToken) =>
-        WriteVersionedAsync(batchId, expectedVersion, at, eventType, eventBody, cancellationToken, (connection, transaction) =>
+        EventAudit audit, CancellationToken cancellationToken) =>
+        WriteVersionedAsync(batchId, expectedVersion, at, eventType, eventBody, audit, null, cancellationToken, (connection, transaction) =>
             connection.ExecuteAsync(
                 "UPDATE batches SET status = @status, abort_reason = @abortReason WHERE id = @batchId",
                 new { status, abortReason, batchId }, transaction));
@@ -174,8 +179,22 @@ public sealed class BatchStore(IDatabase database)
         return [.. rows];
     }
 
+    /// <summary>A batch's events with their audit columns, oldest first, and its additions by id, read on one connection.</summary>
+    public async Task<(IReadOnlyList<EventRow> Events, IReadOnlyDictionary<string, AdditionRow> Additions)> AuditTrailAsync(
+        string batchId, CancellationToken cancellationToken)
+    {
+        await using var connection = await database.OpenAsync(cancellationToken);
+        var events = await connection.QueryAsync<EventRow>("""
+            SELECT seq, batch_id, type, body, occurred_at, actor_key_id, station_id, addition_id, prev_hash, hash
+            FROM batch_events WHERE batch_id = @batchId ORDER BY seq
+            """, new { batchId });
+        var additions = await connection.QueryAsync<AdditionRow>($"{SelectAddition} WHERE batch_id = @batchId", new { batchId });
+        return ([.. events], additions.ToDictionary(a => a.AdditionId, StringComparer.Ordinal));
+    }
+
     private async Task<WriteOutcome> WriteVersionedAsync(
-        string batchId, long expectedVersion, DateTimeOffset at, string eventType, string eventBody, CancellationToken cancellationToken,
+        string batchId, long expectedVersion, DateTimeOffset at, string eventType, string eventBody, EventAudit audit, AdditionRow? addition,
+        CancellationToken cancellationToken,
         Func<DbConnection, DbTransaction, Task> write)
     {
         using var turn = await database.EnterWriteAsync(cancellationToken);
@@ -195,7 +214,11 @@ public sealed class BatchStore(IDatabase database)
             await write(connection, transaction);
             var seq = await EventLog.NextSequenceAsync(connection, transaction);
             await connection.ExecuteAsync("UPDATE batches SET last_event_seq = @seq WHERE id = @batchId", new { seq, batchId }, transaction);
-            await EventLog.AppendAsync(connection, transaction, seq, batchId, eventType, eventBody, at);
+            await EventLog.AppendAsync(connection, transaction, new EventRow
+            {
+                Seq = seq, BatchId = batchId, Type = eventType, Body = eventBody, OccurredAt = TimeText.Format(at),
+                ActorKeyId = audit.ActorKeyId, StationId = audit.StationId, AdditionId = addition?.AdditionId ?? "",
+            }, addition);
             await transaction.CommitAsync(cancellationToken);
             return new WriteOutcome(true, seq);
         }

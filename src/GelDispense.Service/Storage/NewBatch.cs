@@ -1,6 +1,6 @@
 namespace GelDispense.Service.Storage;
 
-/// <summary>What creating a batch writes: the recipe revision (reused when unchanged), the batch and its first event.</summary>
+/// <summary>What creating a batch writes: the recipe revision (reused when unchanged), the batch and its first event, written by <see cref="ActorKeyId"/>.</summary>
 public sealed record NewBatch(
     string Id,
     string StationId,
@@ -12,4 +12,5 @@ public sealed record NewBatch(
     string Status,
     string EventType,
     string EventBody,
-    DateTimeOffset At);
+    DateTimeOffset At,
+    string ActorKeyId);

@@ -1,0 +1,56 @@
+using System.Globalization;
+using System.Security.Cryptography;
+using System.Text;
+
+namespace GelDispense.Service.Storage;
+
+/// <summary>
+/// The per-batch hash chain over the event log. Each event's hash is SHA-256 over the previous event's hash and a
+/// canonical text of the event: a fixed field order, each field written as name, length and value (so no value can
+/// imitate a field boundary), numbers in the invariant culture with round-trip precision. An ADDITION_RECORDED
+/// event also covers the stored addition row, so a reading changed in the additions table breaks the chain too.
+/// </summary>
+public static class AuditChain
+{
+    public static string Link(string prevHash, string canonical) =>
+        Convert.ToHexString(SHA256.HashData(Encoding.UTF8.GetBytes(prevHash + canonical))).ToLowerInvariant();
+
+    public static string Canonical(EventRow entry, AdditionRow? addition)
+    {
+        var text = new StringBuilder();
+        Field(text, "seq", Number(entry.Seq));
+        Field(text, "batch_id", entry.BatchId);
+        Field(text, "type", entry.Type);
+        Field(text, "occurred_at", entry.OccurredAt);
+        Field(text, "actor_key_id", entry.ActorKeyId);
+        Field(text, "station_id", entry.StationId);
+        Field(text, "body", entry.Body);
+        Field(text, "addition_id", entry.AdditionId);
+        if (addition is not null)
+        {
+            Field(text, "addition.ordinal", Number(addition.Ordinal));
+            Field(text, "addition.step_index", Number(addition.StepIndex));
+            Field(text, "addition.reading_g", Number(addition.ReadingG));
+            Field(text, "addition.stable", addition.Stable ? "1" : "0");
+            Field(text, "addition.source", addition.Source);
+            Field(text, "addition.lot_id", addition.LotId);
+            Field(text, "addition.true_mass_g", Number(addition.TrueMassG));
+            Field(text, "addition.within_window", addition.WithinWindow ? "1" : "0");
+            Field(text, "addition.recorded_at", addition.RecordedAt);
+            Field(text, "addition.content_hash", addition.ContentHash);
+            Field(text, "addition.plan_revision", Number(addition.PlanRevision));
+            Field(text, "addition.target_mass_g", Number(addition.TargetMassG));
+            Field(text, "addition.acceptance_g", Number(addition.AcceptanceG));
+        }
+
+        return text.ToString();
+    }
+
+    private static string Number(long value) => value.ToString(CultureInfo.InvariantCulture);
+
+    // "R" gives the shortest text that parses back to the same double, which both engines store exactly.
+    private static string Number(double value) => value.ToString("R", CultureInfo.InvariantCulture);
+
+    private static void Field(StringBuilder text, string name, string value) =>
+        text.Append(name).Append(':').Append(value.Length.ToString(CultureInfo.InvariantCulture)).Append(':').Append(value).Append('\n');
+}
