@@ -4,17 +4,18 @@ namespace GelDispense.LoadHarness;
 
 /// <summary>
 /// What one run does. Every option is bounded so a run stays short and its load small: at most 64 clients, 60 s per
-/// scenario and a cap on the requests of each scenario, always against the in-process service on 127.0.0.1.
+/// scenario (split into interleaved rounds) and a cap on the requests of each scenario, always against the in-process
+/// service on 127.0.0.1.
 /// </summary>
-public sealed record HarnessOptions(int Clients, TimeSpan Duration, TimeSpan Warmup, int MaxRequests, bool Additions, bool AdditionsOnly)
+public sealed record HarnessOptions(int Clients, TimeSpan Duration, int Rounds, TimeSpan Warmup, int MaxRequests, bool Additions, bool AdditionsOnly)
 {
     public const string Usage =
-        "usage: GelDispense.LoadHarness [--clients 1..64 (8)] [--seconds 1..60 (8)] [--warmup-seconds 0..10 (2)] " +
+        "usage: GelDispense.LoadHarness [--clients 1..64 (8)] [--seconds 1..60 (8)] [--rounds 1..20 (4)] [--warmup-seconds 0..10 (1)] " +
         "[--max-requests 1..1000000 (500000)] [--no-additions | --additions-only]";
 
     public static HarnessOptions Parse(IReadOnlyList<string> args)
     {
-        var options = new HarnessOptions(8, TimeSpan.FromSeconds(8), TimeSpan.FromSeconds(2), 500_000, Additions: true, AdditionsOnly: false);
+        var options = new HarnessOptions(8, TimeSpan.FromSeconds(8), 4, TimeSpan.FromSeconds(1), 500_000, Additions: true, AdditionsOnly: false);
         for (var i = 0; i < args.Count; i++)
         {
             var name = args[i];
@@ -22,6 +23,7 @@ public sealed record HarnessOptions(int Clients, TimeSpan Duration, TimeSpan War
             {
                 "--clients" => options with { Clients = Number(name, Value(args, ref i), 1, 64) },
                 "--seconds" => options with { Duration = TimeSpan.FromSeconds(Number(name, Value(args, ref i), 1, 60)) },
+                "--rounds" => options with { Rounds = Number(name, Value(args, ref i), 1, 20) },
                 "--warmup-seconds" => options with { Warmup = TimeSpan.FromSeconds(Number(name, Value(args, ref i), 0, 10)) },
                 "--max-requests" => options with { MaxRequests = Number(name, Value(args, ref i), 1, 1_000_000) },
                 "--no-additions" => options with { Additions = false, AdditionsOnly = false },

@@ -3,27 +3,69 @@ using System.Diagnostics;
 namespace GelDispense.LoadHarness;
 
 /// <summary>
-/// Closed-loop load: N clients each send their next call as soon as the last one answered, until the duration is up
-/// or the scenario's request cap is reached (a call running at the deadline completes and counts).
+/// Closed-loop load: N clients each send their next call as soon as the last one answered, until the slice is over
+/// or the scenario's request cap is reached (a call running at the deadline completes and counts). The scenarios
+/// take turns in short slices, round after round, so a neighbour that loads the machine for a while slows all of
+/// them alike and their ratios stay meaningful on a shared machine.
 /// </summary>
 public static class LoadRunner
 {
-    public static async Task<LoadResult> RunAsync(
-        string scenario, string protocol, int clientCount, HarnessOptions options, Func<int, ILoadClient> newClient, CancellationToken cancellationToken)
+    public static async Task<IReadOnlyList<LoadResult>> RunAsync(IReadOnlyList<Scenario> scenarios, HarnessOptions options, CancellationToken cancellationToken)
     {
-        var clients = Enumerable.Range(0, clientCount).Select(newClient).ToArray();
+        var totals = scenarios.Select(_ => new Slice()).ToArray();
+        var slice = options.Duration / options.Rounds;
+        var capPerSlice = Math.Max(1, options.MaxRequests / options.Rounds);
+        if (options.Warmup > TimeSpan.Zero)
+        {
+            foreach (var scenario in scenarios)
+            {
+                await MeasureAsync(scenario, options.Warmup, capPerSlice, cancellationToken);
+            }
+        }
+
+        for (var round = 1; round <= options.Rounds; round++)
+        {
+            Console.WriteLine($"  round {round} of {options.Rounds} …");
+            for (var k = 0; k < scenarios.Count; k++)
+            {
+                totals[k].Add(await MeasureAsync(scenarios[k], slice, capPerSlice, cancellationToken));
+            }
+        }
+
+        return [.. scenarios.Select((s, k) => totals[k].Result(s))];
+    }
+
+    private static async Task<Slice> MeasureAsync(Scenario scenario, TimeSpan duration, int maxRequests, CancellationToken cancellationToken)
+    {
+        var clients = Enumerable.Range(0, scenario.Clients).Select(scenario.NewClient).ToArray();
         try
         {
-            if (options.Warmup > TimeSpan.Zero)
-            {
-                await MeasureAsync(clients, options.Warmup, options.MaxRequests, cancellationToken);
-            }
-
+            var result = new Slice();
+            var issued = 0;
             var cpuBefore = Process.GetCurrentProcess().TotalProcessorTime;
-            var (latencies, errors, firstError, elapsed) = await MeasureAsync(clients, options.Duration, options.MaxRequests, cancellationToken);
-            var cpu = Process.GetCurrentProcess().TotalProcessorTime - cpuBefore;
-            var sorted = latencies.SelectMany(l => l).Order().ToArray();
-            return new LoadResult(scenario, protocol, clientCount, sorted.Length, errors, elapsed, cpu, sorted, firstError);
+            var clock = Stopwatch.StartNew();
+            var latencies = await Task.WhenAll(clients.Select(async client =>
+            {
+                var mine = new List<long>();
+                while (clock.Elapsed < duration && Interlocked.Increment(ref issued) <= maxRequests)
+                {
+                    try
+                    {
+                        await client.PrepareAsync(cancellationToken);
+                        var start = Stopwatch.GetTimestamp();
+                        await client.CallAsync(cancellationToken);
+                        mine.Add(Stopwatch.GetTimestamp() - start);
+                    }
+                    catch (Exception e) when (e is not OperationCanceledException)
+                    {
+                        result.Fail(e.Message);
+                    }
+                }
+
+                return mine;
+            }));
+            result.Finish(latencies.SelectMany(l => l), clock.Elapsed, Process.GetCurrentProcess().TotalProcessorTime - cpuBefore);
+            return result;
         }
         finally
         {
@@ -34,32 +76,39 @@ public static class LoadRunner
         }
     }
 
-    private static async Task<(List<long>[] Latencies, int Errors, string? FirstError, TimeSpan Elapsed)> MeasureAsync(
-        ILoadClient[] clients, TimeSpan duration, int maxRequests, CancellationToken cancellationToken)
+    /// <summary>What one or more slices of a scenario measured, summed.</summary>
+    private sealed class Slice
     {
-        var latencies = clients.Select(_ => new List<long>()).ToArray();
-        var issued = 0;
-        var errors = 0;
-        string? firstError = null;
-        var clock = Stopwatch.StartNew();
-        await Task.WhenAll(clients.Select(async (client, k) =>
+        private readonly List<long> _latencyTicks = [];
+        private int _errors;
+        private string? _firstError;
+        private TimeSpan _elapsed;
+        private TimeSpan _cpu;
+
+        public void Fail(string message)
         {
-            while (clock.Elapsed < duration && Interlocked.Increment(ref issued) <= maxRequests)
-            {
-                try
-                {
-                    await client.PrepareAsync(cancellationToken);
-                    var start = Stopwatch.GetTimestamp();
-                    await client.CallAsync(cancellationToken);
-                    latencies[k].Add(Stopwatch.GetTimestamp() - start);
-                }
-                catch (Exception e) when (e is not OperationCanceledException)
-                {
-                    Interlocked.Increment(ref errors);
-                    Interlocked.CompareExchange(ref firstError, e.Message, null);
-                }
-            }
-        }));
-        return (latencies, errors, firstError, clock.Elapsed);
+            Interlocked.Increment(ref _errors);
+            Interlocked.CompareExchange(ref _firstError, message, null);
+        }
+
+        public void Finish(IEnumerable<long> latencyTicks, TimeSpan elapsed, TimeSpan cpu)
+        {
+            _latencyTicks.AddRange(latencyTicks);
+            _elapsed += elapsed;
+            _cpu += cpu;
+        }
+
+        public void Add(Slice other)
+        {
+            Finish(other._latencyTicks, other._elapsed, other._cpu);
+            _errors += other._errors;
+            _firstError ??= other._firstError;
+        }
+
+        public LoadResult Result(Scenario scenario)
+        {
+            long[] sorted = [.. _latencyTicks.Order()];
+            return new LoadResult(scenario.Name, scenario.Protocol, scenario.Clients, sorted.Length, _errors, _elapsed, _cpu, sorted, _firstError);
+        }
     }
 }

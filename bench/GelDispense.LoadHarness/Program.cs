@@ -25,8 +25,9 @@ public static class Program
         Console.WriteLine("WARNING: Debug build; run with -c Release for figures worth quoting.");
 #endif
         Console.WriteLine($"GelDispense load harness: .NET {Environment.Version}, {Environment.ProcessorCount} logical cores, " +
-            $"{options.Clients} clients, {options.Duration.TotalSeconds:0} s per scenario after {options.Warmup.TotalSeconds:0} s warm-up, " +
-            $"at most {options.MaxRequests} requests per scenario; service in process on 127.0.0.1 with SQLite in a temp dir.");
+            $"{options.Clients} clients, {options.Duration.TotalSeconds:0} s per scenario in {options.Rounds} interleaved rounds after " +
+            $"{options.Warmup.TotalSeconds:0} s warm-up, at most {options.MaxRequests} requests per scenario; service in process on 127.0.0.1 " +
+            $"with SQLite in a temp dir; load average before: {LoadAverage()}.");
         var workload = DemoWorkload.Load();
         await using var service = await InProcessService.StartAsync();
         using var stop = new CancellationTokenSource();
@@ -36,47 +37,39 @@ public static class Program
             stop.Cancel();
         };
 
-        var results = new List<LoadResult>();
-        async Task Run(string scenario, string protocol, Func<int, ILoadClient> client, int? clients = null)
-        {
-            Console.WriteLine($"  {scenario} over {protocol} …");
-            results.Add(await LoadRunner.RunAsync(scenario, protocol, clients ?? options.Clients, options, client, stop.Token));
-        }
-
-        if (options.AdditionsOnly)
-        {
-            await RunAdditionsAsync(Run, service, workload);
-            return Report(results);
-        }
-
         var (rest, grpc, key) = (service.RestAddress, service.GrpcAddress, service.ApiKey);
-        await Run(ResultTable.NoOp, "REST", _ => new RestCall(rest, key, "/v1/ping", () => "{}"));
-        await Run(ResultTable.PlanRepeated, "REST", _ => new RestCall(rest, key, "/v1/plans", () => workload.PlanJson));
-        await Run(ResultTable.PlanComputed, "REST", _ => new RestCall(rest, key, "/v1/plans", () => workload.PlanJsonAt(workload.FreshGelVolumeMl())));
-        await Run(ResultTable.NoOp, "gRPC", _ => new GrpcCall(grpc, key,
-            (channel, call) => new ProbeService.ProbeServiceClient(channel).PingAsync(new PingRequest(), call).ResponseAsync));
-        await Run(ResultTable.PlanRepeated, "gRPC", _ => new GrpcCall(grpc, key,
-            (channel, call) => new PlanService.PlanServiceClient(channel).CreatePlanAsync(workload.PlanRequest, call).ResponseAsync));
-        await Run(ResultTable.PlanComputed, "gRPC", _ => new GrpcCall(grpc, key,
-            (channel, call) => new PlanService.PlanServiceClient(channel).CreatePlanAsync(workload.PlanRequestAt(workload.FreshGelVolumeMl()), call).ResponseAsync));
+        var scenarios = new List<Scenario>();
+        if (!options.AdditionsOnly)
+        {
+            scenarios.AddRange(
+            [
+                new(ResultTable.NoOp, "REST", options.Clients, _ => new RestCall(rest, key, "/v1/ping", () => "{}")),
+                new(ResultTable.PlanRepeated, "REST", options.Clients, _ => new RestCall(rest, key, "/v1/plans", () => workload.PlanJson)),
+                new(ResultTable.PlanComputed, "REST", options.Clients,
+                    _ => new RestCall(rest, key, "/v1/plans", () => workload.PlanJsonAt(workload.FreshGelVolumeMl()))),
+                new(ResultTable.NoOp, "gRPC", options.Clients, _ => new GrpcCall(grpc, key,
+                    (channel, call) => new ProbeService.ProbeServiceClient(channel).PingAsync(new PingRequest(), call).ResponseAsync)),
+                new(ResultTable.PlanRepeated, "gRPC", options.Clients, _ => new GrpcCall(grpc, key,
+                    (channel, call) => new PlanService.PlanServiceClient(channel).CreatePlanAsync(workload.PlanRequest, call).ResponseAsync)),
+                new(ResultTable.PlanComputed, "gRPC", options.Clients, _ => new GrpcCall(grpc, key,
+                    (channel, call) => new PlanService.PlanServiceClient(channel).CreatePlanAsync(workload.PlanRequestAt(workload.FreshGelVolumeMl()), call).ResponseAsync)),
+            ]);
+        }
+
         if (options.Additions)
         {
-            await RunAdditionsAsync(Run, service, workload);
+            // One station weighing alone (the latency a technician sees), then every client at once on SQLite's single writer.
+            const string addition = "record addition POST /v1/batches/{id}/additions";
+            scenarios.Add(new(addition, "REST", 1, k => new AdditionSequence(rest, key, workload.BatchJson, k)));
+            scenarios.Add(new(addition, "REST", options.Clients, k => new AdditionSequence(rest, key, workload.BatchJson, k)));
         }
 
-        return Report(results);
-    }
-
-    /// <summary>One station weighing alone (the latency a technician sees), then all clients at once on SQLite's single writer.</summary>
-    private static async Task RunAdditionsAsync(Func<string, string, Func<int, ILoadClient>, int?, Task> run, InProcessService service, DemoWorkload workload)
-    {
-        const string scenario = "record addition POST /v1/batches/{id}/additions";
-        await run(scenario, "REST", k => new AdditionSequence(service.RestAddress, service.ApiKey, workload.BatchJson, k), 1);
-        await run(scenario, "REST", k => new AdditionSequence(service.RestAddress, service.ApiKey, workload.BatchJson, k), null);
+        return Report(await LoadRunner.RunAsync(scenarios, options, stop.Token));
     }
 
     private static int Report(IReadOnlyList<LoadResult> results)
     {
+        Console.WriteLine($"load average after: {LoadAverage()}");
         Console.WriteLine();
         Console.Write(ResultTable.Format(results));
         foreach (var verdict in ResultTable.Verdicts(results))
@@ -91,4 +84,8 @@ public static class Program
 
         return results.Any(r => r.Errors > 0) ? 1 : 0;
     }
+
+    /// <summary>The 1, 5 and 15 minute load averages on Linux, so a reader can tell how busy the machine was.</summary>
+    private static string LoadAverage() =>
+        File.Exists("/proc/loadavg") ? string.Join(' ', File.ReadAllText("/proc/loadavg").Split(' ').Take(3)) : "unknown";
 }
