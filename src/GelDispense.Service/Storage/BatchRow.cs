@@ -16,8 +16,6 @@ public sealed class BatchRow
     /// <summary>The <c>DispensingPlan</c> in force: revision <see cref="PlanRevision"/>, re-planned after out-of-window additions.</summary>
     public string Plan { get; init; } = "";
     public long PlanRevision { get; init; }
-    /// <summary>Final batch size of the plan in force relative to the batch as first planned (1 for revision 0).</summary>
-    public double ScaleFactor { get; init; }
     public string AbortReason { get; init; } = "";
     public string CreatedAt { get; init; } = "";
     public string UpdatedAt { get; init; } = "";

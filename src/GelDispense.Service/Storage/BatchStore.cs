@@ -13,7 +13,7 @@ public sealed class BatchStore(IDatabase database)
     private const string SelectBatch = """
         SELECT b.id, b.station_id, b.status, b.recipe_revision_id, r.name AS recipe_name, r.revision AS recipe_revision,
                r.body AS recipe_body, b.setup, COALESCE(p.plan, b.plan) AS plan, b.plan_revision,
-               COALESCE(p.scale_factor, 1.0) AS scale_factor, b.abort_reason, b.created_at, b.updated_at, b.version, b.last_event_seq
+               b.abort_reason, b.created_at, b.updated_at, b.version, b.last_event_seq
         FROM batches b JOIN recipe_revisions r ON r.id = b.recipe_revision_id
         LEFT JOIN plan_revisions p ON p.batch_id = b.id AND p.revision = b.plan_revision
         """;
