@@ -107,7 +107,7 @@ public sealed class BatchOutlookTests(ApiHosts hosts)
         var batch = await Demo.StartBatchAsync(client);
         var teos = batch["steps"]![0]!;
         var (target, tolerance, acceptance) = ((double)teos["targetMassG"]!, (double)teos["toleranceG"]!, (double)teos["acceptanceG"]!);
-        // Guard banding (ISO 14253-1 style decision rule, common practice): the band is the window less the device error.
+        // Guard banding (common practice; the decision rules of ISO 14253-1, from memory): the band is the window less the device error.
         Assert.InRange(acceptance, 0, tolerance * 0.999);
         var trueMassG = target + ((tolerance + acceptance) / 2);
 
