@@ -62,8 +62,17 @@ internal sealed class ServiceProcess : IAsyncDisposable
         process.ErrorDataReceived += (_, e) => replica.Keep(e.Data);
         process.BeginOutputReadLine();
         process.BeginErrorReadLine();
-        await replica.WaitHealthyAsync(name);
-        return replica;
+        try
+        {
+            await replica.WaitHealthyAsync(name);
+            return replica;
+        }
+        catch
+        {
+            // Whatever stopped the wait, a replica nobody holds must not outlive the test.
+            await replica.DisposeAsync();
+            throw;
+        }
     }
 
     /// <summary>Ends the process at once, as a crash or a killed pod would: no graceful drain.</summary>
@@ -112,7 +121,6 @@ internal sealed class ServiceProcess : IAsyncDisposable
             await Task.Delay(100);
         }
 
-        await KillAsync();
         throw new InvalidOperationException($"replica {name} never answered /healthz:\n{Output}");
     }
 
