@@ -1,4 +1,5 @@
 using System.Text.RegularExpressions;
+using GelDispense.Agent.Service;
 
 namespace GelDispense.Agent.Configuration;
 
@@ -10,10 +11,33 @@ internal static partial class StationChecks
         var address = Uri.TryCreate(config.ServiceAddress, UriKind.Absolute, out var uri) ? uri : null;
         errors.Require(address?.Scheme is "http" or "https", "serviceAddress", config.ServiceAddress, "must be an absolute http:// or https:// address");
         errors.Require(StationIdPattern().IsMatch(config.StationId), "stationId", config.StationId, "use 1 to 64 letters, digits, '.', '_' or '-'");
+        if (config.Service is { } tls)
+        {
+            CheckTls(tls, address, errors);
+        }
+
         if (config.Pipette is { } pipette)
         {
             errors.Require(pipette.NominalVolumeUl > 0, "pipette.nominalVolumeUl", pipette.NominalVolumeUl, "must be above 0 µL");
             errors.Require(pipette.MinVolumeUl > 0 && pipette.MinVolumeUl <= pipette.NominalVolumeUl, "pipette.minVolumeUl", pipette.MinVolumeUl, "must be above 0 and at most the nominal volume");
+        }
+    }
+
+    private static void CheckTls(ServiceTlsConfig tls, Uri? address, ErrorList errors)
+    {
+        var any = tls.CaCertificateFile is not null || tls.ClientCertificateFile is not null;
+        errors.Require(!any || address?.Scheme == "https", "service", address?.ToString(), "certificates need an https:// serviceAddress");
+        errors.Require(tls.ClientCertificatePassword is null || tls.ClientCertificateFile is not null,
+            "service.clientCertificatePassword", "(set)", "is given without service.clientCertificateFile");
+        if (tls.CaCertificateFile is { } ca && ServiceTls.Refusal(() => ServiceTls.LoadCa(ca)) is { } caRefusal)
+        {
+            errors.Add("service.caCertificateFile", ca, caRefusal);
+        }
+
+        if (tls.ClientCertificateFile is { } client
+            && ServiceTls.Refusal(() => ServiceTls.LoadClient(client, tls.ClientCertificatePassword)) is { } clientRefusal)
+        {
+            errors.Add("service.clientCertificateFile", client, clientRefusal);
         }
     }
 

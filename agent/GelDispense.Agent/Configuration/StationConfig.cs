@@ -12,6 +12,8 @@ public sealed record StationConfig
 
     public string? ApiKey { get; init; }
 
+    public ServiceTlsConfig? Service { get; init; }
+
     public BalanceConfig Balance { get; init; } = new();
 
     public StabilityConfig Stability { get; init; } = new();

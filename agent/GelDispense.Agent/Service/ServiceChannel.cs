@@ -1,3 +1,4 @@
+using System.Net.Security;
 using Grpc.Net.Client;
 
 namespace GelDispense.Agent.Service;
@@ -9,7 +10,8 @@ namespace GelDispense.Agent.Service;
 /// </summary>
 public static class ServiceChannel
 {
-    public static GrpcChannel Create(Uri address, ServiceLinkSettings settings) =>
+    // tls comes from ServiceTls.Options; null keeps the default validation against the system trust store.
+    public static GrpcChannel Create(Uri address, ServiceLinkSettings settings, SslClientAuthenticationOptions? tls = null) =>
         GrpcChannel.ForAddress(address, new GrpcChannelOptions
         {
             HttpHandler = new SocketsHttpHandler
@@ -19,6 +21,7 @@ public static class ServiceChannel
                 KeepAlivePingDelay = TimeSpan.FromSeconds(30),
                 KeepAlivePingTimeout = TimeSpan.FromSeconds(10),
                 EnableMultipleHttp2Connections = true,
+                SslOptions = tls ?? new SslClientAuthenticationOptions(),
             },
             InitialReconnectBackoff = settings.InitialReconnectBackoff,
             MaxReconnectBackoff = settings.MaxReconnectBackoff,

@@ -47,7 +47,7 @@ public sealed class StationSession : IAsyncDisposable
         var setup = BalanceSetup.From(config);
         var address = new Uri(config.ServiceAddress);
         var journal = AdditionJournal.Open(journalPath, time);
-        var channel = ServiceChannel.Create(address, linkSettings);
+        var channel = ServiceChannel.Create(address, linkSettings, ServiceTls.Options(config.Service));
         var service = new ServiceLink(channel.CreateCallInvoker(), config.ServiceAddress, linkSettings, time, config.ApiKey);
         return new StationSession(config, setup, journal, channel, service, time);
     }
