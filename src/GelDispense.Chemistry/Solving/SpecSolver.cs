@@ -6,9 +6,9 @@ namespace GelDispense.Chemistry.Solving;
 
 /// <summary>
 /// Solves the free solvent (and, when the spec names R, the water) so the sol meets its spec, then scales
-/// to the batch size. Water and solvent enter R and the gel volume linearly, so the solution is exact:
+/// to the batch size. Free solvents may carry no water (checked), so the two conditions solve in turn, exactly:
 /// <code>
-///   W_fixed + f·W_water + t·W_solvent = R·N_precursor
+///   W_fixed + f·W_water = R·N_precursor
 ///   V_fixed + f·V_water + t·V_solvent = m_oxide / ρ_target
 /// </code>
 /// with f the water factor and t the solvent factor. Water from catalyst solutions sits in W_fixed, so R
@@ -35,17 +35,14 @@ public static class SpecSolver
         var all = formulation.WithMasses(masses).Totals();
         var s = Part(formulation, masses, solvent);
         var w = Part(formulation, masses, water);
-        var fixedWater = all.WaterMol - s.WaterMol - w.WaterMol;
+        var fixedWater = all.WaterMol - w.WaterMol;
         var fixedVolume = all.VolumeMl - s.VolumeMl - w.VolumeMl;
 
         var waterFactor = 1.0;
         if (recipe.Spec.HydrolysisRatio is { } r)
         {
-            // Free solvents carry no water in practice; if one does, the 2×2 system below still holds.
             var neededWater = r.Value * all.PrecursorMol - fixedWater;
-            var det = w.WaterMol * s.VolumeMl - s.WaterMol * w.VolumeMl;
-            var volumeNeeded = all.OxideG / target.Value - fixedVolume;
-            waterFactor = s.WaterMol == 0 ? neededWater / w.WaterMol : (neededWater * s.VolumeMl - s.WaterMol * volumeNeeded) / det;
+            waterFactor = neededWater / w.WaterMol;
             if (!(waterFactor >= 0))
             {
                 throw new InvalidInputException("recipe.spec.hydrolysisRatio.value", Formulation.Text(r.Value),

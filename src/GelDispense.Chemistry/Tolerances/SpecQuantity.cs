@@ -38,15 +38,20 @@ public sealed class SpecQuantity
         return a / b;
     }
 
-    /// <summary>∂Q/∂m_i = (a_i − Q·b_i) / (b·m).</summary>
-    public double Sensitivity(ReadOnlySpan<double> massesG, int step)
+    /// <summary>∂Q/∂m_i = (a_i − Q·b_i) / (b·m) for every step, from one pass over the masses.</summary>
+    public void Sensitivities(ReadOnlySpan<double> massesG, Span<double> into)
     {
-        double b = 0;
+        double a = 0, b = 0;
         for (var i = 0; i < massesG.Length; i++)
         {
+            a += NumeratorPerG[i] * massesG[i];
             b += DenominatorPerG[i] * massesG[i];
         }
 
-        return (NumeratorPerG[step] - Evaluate(massesG) * DenominatorPerG[step]) / b;
+        var q = a / b;
+        for (var i = 0; i < massesG.Length; i++)
+        {
+            into[i] = (NumeratorPerG[i] - q * DenominatorPerG[i]) / b;
+        }
     }
 }

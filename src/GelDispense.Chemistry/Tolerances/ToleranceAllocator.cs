@@ -55,12 +55,22 @@ public static class ToleranceAllocator
 
             level = lo;
             var grown = Fill(windows, frozen, weights, caps, hi).ToArray();
-            var binding = quantities.Where(q => !Holds([q], masses, grown, mode)).ToArray();
+            var bound = new bool[n];
+            var slopes = new double[n];
+            foreach (var q in quantities.Where(q => !Holds([q], masses, grown, mode)))
+            {
+                q.Sensitivities(masses, slopes);
+                for (var i = 0; i < n; i++)
+                {
+                    bound[i] |= slopes[i] != 0;
+                }
+            }
+
             Fill(windows, frozen, weights, caps, level);
             var froze = false;
             for (var i = 0; i < n; i++)
             {
-                if (!frozen[i] && (windows[i] >= caps[i] || binding.Any(q => q.Sensitivity(masses, i) != 0)))
+                if (!frozen[i] && (windows[i] >= caps[i] || bound[i]))
                 {
                     frozen[i] = froze = true;
                 }
@@ -97,10 +107,12 @@ public static class ToleranceAllocator
     /// <summary>|Q(m) − target| plus the root-sum-square of first-order contributions.</summary>
     public static double RssDeviation(SpecQuantity q, ReadOnlySpan<double> massesG, ReadOnlySpan<double> windowsG)
     {
+        Span<double> slopes = massesG.Length <= 64 ? stackalloc double[massesG.Length] : new double[massesG.Length];
+        q.Sensitivities(massesG, slopes);
         var sum = 0.0;
         for (var i = 0; i < massesG.Length; i++)
         {
-            var c = q.Sensitivity(massesG, i) * windowsG[i];
+            var c = slopes[i] * windowsG[i];
             sum += c * c;
         }
 
