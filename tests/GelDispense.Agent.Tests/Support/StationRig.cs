@@ -60,13 +60,16 @@ internal sealed class StationRig : IAsyncDisposable
 
     public StationSession Session { get; private set; } = null!;
 
-    public static async Task<StationRig> StartAsync(string dir, IReadOnlyDictionary<int, double> overPours, TechnicianPace pace, RigDevices? devices = null, int seed = 11)
+    // alongside wraps the technician, for tests that must act at a known pan mass from the simulator's own thread.
+    public static async Task<StationRig> StartAsync(
+        string dir, IReadOnlyDictionary<int, double> overPours, TechnicianPace pace, RigDevices? devices = null, int seed = 11, Func<ITechnician, ControlledPort, ITechnician>? alongside = null)
     {
         devices ??= RigDevices.Demo;
         var service = await EmbeddedService.StartAsync(Path.Combine(dir, "service", "geldispense.db"));
         var key = await service.IssueKeyAsync(Roles.Station, DemoScenario.StationId);
         var rig = new StationRig(dir, service, new ControlledPort(new PtySimulatorPort(Path.Combine(dir, "balance-tty"))), devices, key);
-        var technician = new FollowingTechnician(() => rig.Runner?.CurrentView, overPours, pace, TimeSpan.FromMilliseconds(200));
+        ITechnician technician = new FollowingTechnician(() => rig.Runner?.CurrentView, overPours, pace, TimeSpan.FromMilliseconds(200));
+        technician = alongside?.Invoke(technician, rig.Port) ?? technician;
         var simulator = devices.Simulator;
         var host = new SimulatorHost(
             new BalanceSimulator(simulator, technician, new Random(seed)),
