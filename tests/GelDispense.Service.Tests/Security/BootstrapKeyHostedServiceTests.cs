@@ -1,4 +1,3 @@
-using System.Collections.Concurrent;
 using System.Net;
 using System.Net.Http.Headers;
 using GelDispense.Service.Tests.Infrastructure;
@@ -6,7 +5,6 @@ using Microsoft.AspNetCore.Mvc.Testing;
 using Microsoft.Data.Sqlite;
 using Microsoft.Extensions.DependencyInjection;
 using Serilog.Core;
-using Serilog.Events;
 
 namespace GelDispense.Service.Tests.Security;
 
@@ -57,15 +55,5 @@ public sealed class BootstrapKeyHostedServiceTests(ApiHosts hosts)
         var lines = log.Messages.ToList();
         Assert.Contains(lines, m => m.Contains(path, StringComparison.Ordinal));
         Assert.DoesNotContain(lines, m => m.Contains(key, StringComparison.Ordinal));
-    }
-
-    /// <summary>A Serilog sink the service's logger picks up from its services (ReadFrom.Services).</summary>
-    private sealed class CapturedLog : ILogEventSink
-    {
-        private readonly ConcurrentQueue<string> _messages = new();
-
-        public IEnumerable<string> Messages => _messages;
-
-        public void Emit(LogEvent logEvent) => _messages.Enqueue(logEvent.RenderMessage(System.Globalization.CultureInfo.InvariantCulture));
     }
 }
