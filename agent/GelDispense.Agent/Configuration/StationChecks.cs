@@ -10,6 +10,7 @@ internal static partial class StationChecks
     {
         var address = Uri.TryCreate(config.ServiceAddress, UriKind.Absolute, out var uri) ? uri : null;
         errors.Require(address?.Scheme is "http" or "https", "serviceAddress", config.ServiceAddress, "must be an absolute http:// or https:// address");
+        CheckStandbys(config, address, errors);
         errors.Require(StationIdPattern().IsMatch(config.StationId), "stationId", config.StationId, "use 1 to 64 letters, digits, '.', '_' or '-'");
         if (config.Service is { } tls)
         {
@@ -20,6 +21,30 @@ internal static partial class StationChecks
         {
             errors.Require(pipette.NominalVolumeUl > 0, "pipette.nominalVolumeUl", pipette.NominalVolumeUl, "must be above 0 µL");
             errors.Require(pipette.MinVolumeUl > 0 && pipette.MinVolumeUl <= pipette.NominalVolumeUl, "pipette.minVolumeUl", pipette.MinVolumeUl, "must be above 0 and at most the nominal volume");
+        }
+    }
+
+    private static void CheckStandbys(StationConfig config, Uri? address, ErrorList errors)
+    {
+        var seen = new HashSet<Uri>();
+        if (address is not null)
+        {
+            seen.Add(address);
+        }
+
+        for (var i = 0; i < config.StandbyAddresses.Count; i++)
+        {
+            var field = $"standbyAddresses[{i}]";
+            var text = config.StandbyAddresses[i];
+            if (!Uri.TryCreate(text, UriKind.Absolute, out var standby) || standby.Scheme is not ("http" or "https"))
+            {
+                errors.Add(field, text, "must be an absolute http:// or https:// address");
+                continue;
+            }
+
+            // One TLS section serves every address, so a mix of plain and TLS replicas cannot be configured.
+            errors.Require(address is null || standby.Scheme == address.Scheme, field, text, $"must use the same scheme as serviceAddress ({address?.Scheme})");
+            errors.Require(seen.Add(standby), field, text, "is listed twice (or equals serviceAddress)");
         }
     }
 

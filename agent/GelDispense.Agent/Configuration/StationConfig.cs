@@ -8,6 +8,9 @@ public sealed record StationConfig
 {
     public string ServiceAddress { get; init; } = "http://127.0.0.1:5081";
 
+    /// <summary>Other replicas of the service, tried in order when the one in use is down or shedding load.</summary>
+    public IReadOnlyList<string> StandbyAddresses { get; init; } = [];
+
     public string StationId { get; init; } = "station-1";
 
     public string? ApiKey { get; init; }

@@ -1,3 +1,4 @@
+using System.Net.Security;
 using Grpc.Core;
 using Grpc.Net.Client;
 
@@ -17,7 +18,8 @@ public sealed class FailoverCallInvoker : CallInvoker, IDisposable
     private readonly CallInvoker[] _invokers;
     private int _current;
 
-    public FailoverCallInvoker(IReadOnlyList<Uri> addresses, ServiceLinkSettings settings)
+    // tls comes from ServiceTls.Options and applies to every address; null keeps the system trust store.
+    public FailoverCallInvoker(IReadOnlyList<Uri> addresses, ServiceLinkSettings settings, SslClientAuthenticationOptions? tls = null)
     {
         if (addresses.Count == 0)
         {
@@ -25,7 +27,7 @@ public sealed class FailoverCallInvoker : CallInvoker, IDisposable
         }
 
         _addresses = [.. addresses];
-        _channels = [.. addresses.Select(a => ServiceChannel.Create(a, settings))];
+        _channels = [.. addresses.Select(a => ServiceChannel.Create(a, settings, tls))];
         _invokers = [.. _channels.Select(c => c.CreateCallInvoker())];
     }
 

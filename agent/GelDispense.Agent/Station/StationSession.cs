@@ -6,7 +6,6 @@ using GelDispense.Chemistry.Errors;
 using GelDispense.Contracts.V1;
 using Google.Protobuf;
 using Grpc.Core;
-using Grpc.Net.Client;
 
 namespace GelDispense.Agent.Station;
 
@@ -17,17 +16,17 @@ namespace GelDispense.Agent.Station;
 /// </summary>
 public sealed class StationSession : IAsyncDisposable
 {
-    private readonly GrpcChannel _channel;
+    private readonly ServiceConnection _connection;
     private readonly TimeProvider _time;
 
-    private StationSession(StationConfig config, BalanceSetup setup, AdditionJournal journal, GrpcChannel channel, ServiceLink service, TimeProvider time)
+    private StationSession(StationConfig config, BalanceSetup setup, AdditionJournal journal, ServiceConnection connection, TimeProvider time)
     {
         Config = config;
         Setup = setup;
         Journal = journal;
-        _channel = channel;
-        Service = service;
-        Outbox = new AdditionOutbox(journal, service);
+        _connection = connection;
+        Service = connection.Link;
+        Outbox = new AdditionOutbox(journal, Service);
         _time = time;
     }
 
@@ -41,15 +40,12 @@ public sealed class StationSession : IAsyncDisposable
 
     public AdditionOutbox Outbox { get; }
 
-    /// <summary>Checks the config (every problem at once) and opens the journal and the channel.</summary>
+    /// <summary>Checks the config (every problem at once) and opens the journal and the service connection.</summary>
     public static StationSession Open(StationConfig config, string journalPath, ServiceLinkSettings linkSettings, TimeProvider time)
     {
         var setup = BalanceSetup.From(config);
-        var address = new Uri(config.ServiceAddress);
         var journal = AdditionJournal.Open(journalPath, time);
-        var channel = ServiceChannel.Create(address, linkSettings, ServiceTls.Options(config.Service));
-        var service = new ServiceLink(channel.CreateCallInvoker(), config.ServiceAddress, linkSettings, time, config.ApiKey);
-        return new StationSession(config, setup, journal, channel, service, time);
+        return new StationSession(config, setup, journal, ServiceConnection.Open(config, linkSettings, time), time);
     }
 
     /// <summary>Replays the journal, then creates the batch from the recipe or fetches the one to resume.</summary>
@@ -112,7 +108,7 @@ public sealed class StationSession : IAsyncDisposable
 
     public ValueTask DisposeAsync()
     {
-        _channel.Dispose();
+        _connection.Dispose();
         Journal.Dispose();
         return ValueTask.CompletedTask;
     }

@@ -93,4 +93,28 @@ public class BalanceSetupTests
             ["stability.mode", "stability.minReadings", "stability.bandG", "stability.driftWindowS", "serviceAddress", "stationId", "pipette.minVolumeUl"],
             Errors(config).Select(e => e.Field));
     }
+
+    [Fact]
+    public void Standby_addresses_that_are_not_http_mix_schemes_or_repeat_are_each_named_by_index()
+    {
+        var config = Serial with
+        {
+            ServiceAddress = "http://replica-a:5081",
+            StandbyAddresses = ["http://replica-b:5081", "replica-c", "https://replica-d:5081", "http://replica-a:5081"],
+        };
+
+        var errors = Errors(config);
+
+        Assert.Equal(["standbyAddresses[1]", "standbyAddresses[2]", "standbyAddresses[3]"], errors.Select(e => e.Field));
+        Assert.Contains("same scheme", errors[1].Reason, StringComparison.Ordinal);
+        Assert.Contains("twice", errors[2].Reason, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Distinct_standby_addresses_of_the_same_scheme_are_accepted()
+    {
+        var setup = BalanceSetup.From(Serial with { StandbyAddresses = ["http://127.0.0.1:6081", "http://127.0.0.1:7081"] });
+
+        Assert.Equal("column", setup.Parser.Format.Name);
+    }
 }
