@@ -1,3 +1,4 @@
+using System.Text.RegularExpressions;
 using System.Text.Json;
 using System.Xml.Linq;
 
@@ -34,6 +35,10 @@ internal static class ServiceSettings
             .Where(file => !file.Contains($"{Path.DirectorySeparatorChar}obj{Path.DirectorySeparatorChar}", StringComparison.Ordinal)
                 && !file.Contains($"{Path.DirectorySeparatorChar}bin{Path.DirectorySeparatorChar}", StringComparison.Ordinal))
             .Any(file => File.ReadAllText(file).Contains($"MapHealthChecks(\"{path}\"", StringComparison.Ordinal));
+
+    /// <summary>The gRPC health service name the host registers for liveness (storage left out), read from its source.</summary>
+    public static string GrpcLivenessService { get; } =
+        Regex.Match(RepoPaths.Read("src/GelDispense.Service/Extensions/HealthExtensions.cs"), "LivenessService = \"([^\"]+)\"").Groups[1].Value;
 
     /// <summary>The environment variable that sets a .NET configuration path (':' becomes '__').</summary>
     public static string EnvName(string configurationPath) => configurationPath.Replace(":", "__", StringComparison.Ordinal);

@@ -26,8 +26,7 @@ public static class EndpointExtensions
         app.MapGrpcService<ProbeApi>();
         app.MapGrpcService<ApiKeyApi>();
         app.MapGrpcReflectionService().RequireAuthorization(Policies.Read);
-        app.MapGrpcHealthChecksService().AllowAnonymous();
-        app.MapHealthChecks("/healthz").AllowAnonymous();
+        app.MapGelDispenseHealth();
         app.MapGet("/", () => Results.Redirect("/swagger")).ExcludeFromDescription().AllowAnonymous();
         return app;
     }

@@ -23,7 +23,7 @@ public static class ServiceCollectionExtensions
             // Error details are packed as Any; the transcoder can only write the types it is told about.
             options.TypeRegistry = Google.Protobuf.Reflection.TypeRegistry.FromMessages(Google.Rpc.BadRequest.Descriptor));
         services.AddGrpcReflection();
-        services.AddGrpcHealthChecks().AddCheck<StorageHealthCheck>("storage");
+        services.AddGelDispenseHealth();
         services.AddGelDispenseSwagger();
 
         services.AddGelDispenseStorage(configuration);

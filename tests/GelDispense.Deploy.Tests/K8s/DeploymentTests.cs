@@ -31,9 +31,16 @@ public sealed class DeploymentTests
         {
             Assert.NotNull(probe?.Grpc);
             Assert.Equal(Manifests.NamedPort("grpc"), probe.Grpc.Port);
-            // No service name: the overall status of grpc.health.v1.Health, which includes the storage check.
-            Assert.Null(probe.Grpc.Service);
         });
+    }
+
+    [Fact]
+    public void Readiness_asks_the_overall_status_with_storage_and_liveness_the_service_name_that_leaves_storage_out()
+    {
+        // No service name: the overall status of grpc.health.v1.Health, which includes the storage check.
+        Assert.Null(Container.ReadinessProbe.Grpc.Service);
+        Assert.False(string.IsNullOrEmpty(ServiceSettings.GrpcLivenessService), "HealthExtensions.LivenessService not found in the service source");
+        Assert.Equal(ServiceSettings.GrpcLivenessService, Container.LivenessProbe.Grpc.Service);
     }
 
     [Fact]

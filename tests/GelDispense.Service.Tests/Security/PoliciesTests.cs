@@ -11,7 +11,7 @@ namespace GelDispense.Service.Tests.Security;
 public sealed class PoliciesTests(ApiHosts hosts)
 {
     // Reachable without a key on purpose: probes must work before any key exists.
-    private static readonly string[] Anonymous = ["/geldispense.v1.ProbeService/Ping", "/v1/ping", "/healthz", "/grpc.health.v1.Health/Check", "/grpc.health.v1.Health/Watch", "/grpc.health.v1.Health/List", "/"];
+    private static readonly string[] Anonymous = ["/geldispense.v1.ProbeService/Ping", "/v1/ping", "/healthz", "/livez", "/grpc.health.v1.Health/Check", "/grpc.health.v1.Health/Watch", "/grpc.health.v1.Health/List", "/"];
 
     [Theory, SqliteEngine]
     public async Task Every_gRPC_method_of_the_contract_and_every_REST_route_names_a_policy(string engine)
