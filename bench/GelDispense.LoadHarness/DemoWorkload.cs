@@ -20,14 +20,16 @@ public sealed class DemoWorkload
 
     private const string VolumeMark = "@gel-volume@";
 
+    private readonly string _recipeJson;
     private readonly string _planAtVolumeHead;
     private readonly string _planAtVolumeTail;
     private long _freshVolumes;
 
     private DemoWorkload(JsonNode recipe)
     {
-        PlanJson = PlanBody(recipe.ToJsonString());
-        BatchJson = $$"""{"stationId":"{{StationId}}","recipe":{{recipe.ToJsonString()}},"balance":{{BalanceJson}},"pipette":{{PipetteJson}}}""";
+        _recipeJson = recipe.ToJsonString();
+        PlanJson = PlanBody(_recipeJson);
+        BatchJson = BatchJsonFor(StationId);
         PlanRequest = JsonParser.Default.Parse<CreatePlanRequest>(PlanJson);
         recipe["scale"] = new JsonObject { ["gelVolumeMl"] = VolumeMark };
         var template = PlanBody(recipe.ToJsonString()).Split($"\"{VolumeMark}\"");
@@ -39,6 +41,13 @@ public sealed class DemoWorkload
 
     /// <summary>Body of POST /v1/batches.</summary>
     public string BatchJson { get; }
+
+    /// <summary>Body of POST /v1/batches for the demo batch at another station.</summary>
+    public string BatchJsonFor(string stationId) =>
+        $$"""{"stationId":"{{stationId}}","recipe":{{_recipeJson}},"balance":{{BalanceJson}},"pipette":{{PipetteJson}}}""";
+
+    /// <summary>The demo batch at <paramref name="stationId"/> for gRPC.</summary>
+    public CreateBatchRequest BatchRequestFor(string stationId) => JsonParser.Default.Parse<CreateBatchRequest>(BatchJsonFor(stationId));
 
     /// <summary>The same plan request for gRPC.</summary>
     public CreatePlanRequest PlanRequest { get; }

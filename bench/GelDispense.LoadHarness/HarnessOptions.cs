@@ -1,21 +1,27 @@
 using System.Globalization;
+using System.Net;
+using Npgsql;
 
 namespace GelDispense.LoadHarness;
 
 /// <summary>
-/// What one run does. Every option is bounded so a run stays short and its load small: at most 64 clients, 60 s per
-/// scenario (split into interleaved rounds) and a cap on the requests of each scenario, always against the in-process
-/// service on 127.0.0.1.
+/// What one run does. Every option is bounded so a run stays short and its load small: at most 64 clients or
+/// stations, 60 s per scenario (split into interleaved rounds) and a cap on the requests of each scenario, always
+/// against the in-process service and a database on 127.0.0.1.
 /// </summary>
-public sealed record HarnessOptions(int Clients, TimeSpan Duration, int Rounds, TimeSpan Warmup, int MaxRequests, bool Additions, bool AdditionsOnly)
+public sealed record HarnessOptions(
+    int Clients, TimeSpan Duration, int Rounds, TimeSpan Warmup, int MaxRequests, bool Additions, bool AdditionsOnly, bool Ingest, int Stations,
+    string? Postgres)
 {
     public const string Usage =
         "usage: GelDispense.LoadHarness [--clients 1..64 (8)] [--seconds 1..60 (8)] [--rounds 1..20 (4)] [--warmup-seconds 0..10 (1)] " +
-        "[--max-requests 1..1000000 (500000)] [--no-additions | --additions-only]";
+        "[--max-requests 1..1000000 (500000)] [--no-additions | --additions-only | --ingest [--stations 1..64 (50)] " +
+        "[--postgres \"Host=127.0.0.1;...\" (default: a throwaway local cluster)]]";
 
     public static HarnessOptions Parse(IReadOnlyList<string> args)
     {
-        var options = new HarnessOptions(8, TimeSpan.FromSeconds(8), 4, TimeSpan.FromSeconds(1), 500_000, Additions: true, AdditionsOnly: false);
+        var options = new HarnessOptions(8, TimeSpan.FromSeconds(8), 4, TimeSpan.FromSeconds(1), 500_000, Additions: true, AdditionsOnly: false,
+            Ingest: false, Stations: 50, Postgres: null);
         for (var i = 0; i < args.Count; i++)
         {
             var name = args[i];
@@ -28,6 +34,9 @@ public sealed record HarnessOptions(int Clients, TimeSpan Duration, int Rounds, 
                 "--max-requests" => options with { MaxRequests = Number(name, Value(args, ref i), 1, 1_000_000) },
                 "--no-additions" => options with { Additions = false, AdditionsOnly = false },
                 "--additions-only" => options with { Additions = true, AdditionsOnly = true },
+                "--ingest" => options with { Ingest = true },
+                "--stations" => options with { Stations = Number(name, Value(args, ref i), 1, 64) },
+                "--postgres" => options with { Postgres = Loopback(name, Value(args, ref i)) },
                 _ => throw new ArgumentException($"{name}: unknown option. {Usage}"),
             };
         }
@@ -42,4 +51,22 @@ public sealed record HarnessOptions(int Clients, TimeSpan Duration, int Rounds, 
         int.TryParse(text, NumberStyles.None, CultureInfo.InvariantCulture, out var value) && value >= min && value <= max
             ? value
             : throw new ArgumentException($"{name} '{text}': must be a whole number from {min} to {max}.");
+
+    /// <summary>The harness loads nothing but this machine: the connection string must name a loopback host.</summary>
+    private static string Loopback(string name, string connectionString)
+    {
+        string? host;
+        try
+        {
+            host = new NpgsqlConnectionStringBuilder(connectionString).Host;
+        }
+        catch (ArgumentException e)
+        {
+            throw new ArgumentException($"{name}: not a PostgreSQL connection string ({e.Message}).");
+        }
+
+        return host is "localhost" || (IPAddress.TryParse(host, out var address) && IPAddress.IsLoopback(address))
+            ? connectionString
+            : throw new ArgumentException($"{name} host '{host}': the harness only loads 127.0.0.1, ::1 or localhost.");
+    }
 }

@@ -9,7 +9,8 @@ namespace GelDispense.LoadHarness;
 
 /// <summary>
 /// The real service, built by the same call as its Program.cs, on loopback Kestrel: REST (HTTP/1.1) and gRPC
-/// (HTTP/2) on two free ports, SQLite in a temporary directory that is deleted afterwards. Request logging is
+/// (HTTP/2) on two free ports, with SQLite in a temporary directory that is deleted afterwards, or PostgreSQL when
+/// given a connection string. Request logging is
 /// turned down to warnings, so the figures measure the API and not the console. When the service guards its routes
 /// with API keys, the harness uses the admin key the service writes on its first start, and turns the per-key rate
 /// limit off: the harness measures the service, not its limiter.
@@ -35,7 +36,7 @@ public sealed class InProcessService : IAsyncDisposable
     /// <summary>The admin key the service issued on its first start, or null when it issues none.</summary>
     public string? ApiKey { get; }
 
-    public static async Task<InProcessService> StartAsync()
+    public static async Task<InProcessService> StartAsync(string? postgresConnection = null)
     {
         var directory = Path.Combine(Path.GetTempPath(), $"geldispense-load-{Guid.NewGuid():N}");
         Directory.CreateDirectory(directory);
@@ -50,7 +51,8 @@ public sealed class InProcessService : IAsyncDisposable
             [
                 $"--Kestrel:Endpoints:Rest:Url={rest}", "--Kestrel:Endpoints:Rest:Protocols=Http1",
                 $"--Kestrel:Endpoints:Grpc:Url={grpc}", "--Kestrel:Endpoints:Grpc:Protocols=Http2",
-                "--Storage:Provider=Sqlite", $"--ConnectionStrings:GelDispense=Data Source={Path.Combine(directory, "geldispense.db")}",
+                postgresConnection is null ? "--Storage:Provider=Sqlite" : "--Storage:Provider=Postgres",
+                $"--ConnectionStrings:GelDispense={postgresConnection ?? $"Data Source={Path.Combine(directory, "geldispense.db")}"}",
                 "--Serilog:MinimumLevel:Default=Warning",
                 $"--Auth:BootstrapKeyFile={keyFile}", "--Auth:PermitsPerSecondPerKey=0",
             ],
@@ -69,7 +71,7 @@ public sealed class InProcessService : IAsyncDisposable
         Directory.Delete(_directory, recursive: true);
     }
 
-    private static int FreePort()
+    internal static int FreePort()
     {
         using var listener = new TcpListener(IPAddress.Loopback, 0);
         listener.Start();

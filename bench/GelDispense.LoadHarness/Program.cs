@@ -4,7 +4,8 @@ namespace GelDispense.LoadHarness;
 
 /// <summary>
 /// Load harness for the service: starts it in process on loopback, then measures the plan call against the no-op
-/// Ping on REST and gRPC in the same run, and (unless --no-additions) the latency of recording additions.
+/// Ping on REST and gRPC in the same run, and (unless --no-additions) the latency of recording additions; or, with
+/// --ingest, addition ingest from many stations on PostgreSQL against a raw insert loop.
 /// </summary>
 public static class Program
 {
@@ -27,15 +28,15 @@ public static class Program
         Console.WriteLine($"GelDispense load harness: .NET {Environment.Version}, {Environment.ProcessorCount} logical cores, " +
             $"{options.Clients} clients, {options.Duration.TotalSeconds:0} s per scenario in {options.Rounds} interleaved rounds after " +
             $"{options.Warmup.TotalSeconds:0} s warm-up, at most {options.MaxRequests} requests per scenario; service in process on 127.0.0.1 " +
-            $"with SQLite in a temp dir; load average before: {LoadAverage()}.");
+            $"with {(options.Ingest ? "PostgreSQL" : "SQLite in a temp dir")}; load average before: {LoadAverage()}.");
         var workload = DemoWorkload.Load();
-        await using var service = await InProcessService.StartAsync();
-        using var stop = new CancellationTokenSource();
-        Console.CancelKeyPress += (_, e) =>
+        if (options.Ingest)
         {
-            e.Cancel = true;
-            stop.Cancel();
-        };
+            return await IngestAsync(options, workload);
+        }
+
+        await using var service = await InProcessService.StartAsync();
+        using var stop = StopOnCtrlC();
 
         var (rest, grpc, key) = (service.RestAddress, service.GrpcAddress, service.ApiKey);
         var scenarios = new List<Scenario>();
@@ -65,6 +66,29 @@ public static class Program
         }
 
         return Report(await LoadRunner.RunAsync(scenarios, options, stop.Token));
+    }
+
+    /// <summary>The service on PostgreSQL (a throwaway cluster unless --postgres names one), stations against raw inserts.</summary>
+    private static async Task<int> IngestAsync(HarnessOptions options, DemoWorkload workload)
+    {
+        // The service's pool (100 by default) and one connection per raw loop, with room to spare.
+        await using var cluster = options.Postgres is null ? await ThrowawayPostgres.StartAsync(maxConnections: 200) : null;
+        var connectionString = options.Postgres ?? cluster!.ConnectionString;
+        await using var service = await InProcessService.StartAsync(connectionString);
+        using var stop = StopOnCtrlC();
+        var scenarios = await IngestScenarios.CreateAsync(service, connectionString, workload, options.Stations);
+        return Report(await LoadRunner.RunAsync(scenarios, options, stop.Token));
+    }
+
+    private static CancellationTokenSource StopOnCtrlC()
+    {
+        var stop = new CancellationTokenSource();
+        Console.CancelKeyPress += (_, e) =>
+        {
+            e.Cancel = true;
+            stop.Cancel();
+        };
+        return stop;
     }
 
     private static int Report(IReadOnlyList<LoadResult> results)
