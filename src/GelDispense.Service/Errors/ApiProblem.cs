@@ -25,6 +25,7 @@ public sealed record ApiProblem(Grpc.Core.StatusCode Code, string Title, IReadOn
         Grpc.Core.StatusCode.PermissionDenied => StatusCodes.Status403Forbidden,
         Grpc.Core.StatusCode.Unimplemented => StatusCodes.Status501NotImplemented,
         Grpc.Core.StatusCode.Unavailable => StatusCodes.Status503ServiceUnavailable,
+        Grpc.Core.StatusCode.DeadlineExceeded => StatusCodes.Status504GatewayTimeout,
         Grpc.Core.StatusCode.Cancelled => 499,
         _ => StatusCodes.Status500InternalServerError,
     };

@@ -9,7 +9,7 @@ namespace GelDispense.Service.Extensions;
 
 /// <summary>
 /// Authentication (API keys, and JWTs when <c>Auth:Jwt:Authority</c> is set), the role policies, the first admin
-/// key, and a token-bucket rate limit per key.
+/// key, a token-bucket rate limit per key, and the per-call time limits.
 /// </summary>
 public static class SecurityExtensions
 {
@@ -47,13 +47,17 @@ public static class SecurityExtensions
         services.AddRateLimiter(options =>
         {
             options.RejectionStatusCode = StatusCodes.Status429TooManyRequests;
+            options.OnRejected = RateLimitRejection.WriteAsync;
             options.GlobalLimiter = PartitionedRateLimiter.Create<HttpContext, string>(context => Partition(context, settings));
         });
+        services.AddGelDispenseTimeouts(RequestLimits.From(configuration));
         return services;
     }
 
     public static WebApplication UseGelDispenseSecurity(this WebApplication app)
     {
+        // First, so the time limits also bound the key lookups of authentication.
+        app.UseGelDispenseTimeouts();
         app.UseAuthentication();
         // After authentication, so the limiter partitions by the key the caller proved, not by a header anyone can send.
         app.UseRateLimiter();
