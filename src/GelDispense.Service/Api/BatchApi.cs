@@ -9,8 +9,10 @@ using Microsoft.AspNetCore.Authorization;
 
 namespace GelDispense.Service.Api;
 
-/// <summary>Batches at stations: create, read, additions, as-made, complete/abort, the LIMS list, CSV export, the live watch stream and the audit check.</summary>
-public sealed class BatchApi(Planner planner, BatchLedger ledger, AdditionRecorder additions, AuditVerifier audit, BatchEventSignal signal, RequestLog log) : BatchService.BatchServiceBase
+/// <summary>Batches at stations: create, read, additions and their corrections, as-made, complete/abort, the LIMS list, CSV export, the live watch stream and the audit check.</summary>
+public sealed class BatchApi(
+    Planner planner, BatchLedger ledger, AdditionRecorder additions, AdditionCorrector corrections, AuditVerifier audit, BatchEventSignal signal, RequestLog log)
+    : BatchService.BatchServiceBase
 {
     /// <summary>How often a watcher re-reads the event log for events written by other replicas.</summary>
     public static readonly TimeSpan WatchPollInterval = TimeSpan.FromSeconds(1);
@@ -39,6 +41,13 @@ public sealed class BatchApi(Planner planner, BatchLedger ledger, AdditionRecord
     {
         log.Batch(request.BatchId);
         return additions.RecordAsync(request, Caller.From(context.GetHttpContext().User), context.CancellationToken);
+    }
+
+    [Authorize(Policy = Policies.CorrectAdditions)]
+    public override Task<CorrectAdditionResponse> CorrectAddition(CorrectAdditionRequest request, ServerCallContext context)
+    {
+        log.Batch(request.BatchId);
+        return corrections.CorrectAsync(request, Caller.From(context.GetHttpContext().User), context.CancellationToken);
     }
 
     [Authorize(Policy = Policies.Read)]

@@ -34,7 +34,7 @@ public sealed class AdditionRecorder(BatchLedger ledger, BatchStore store, Batch
             request.ReadingG.ToString("R", CultureInfo.InvariantCulture), request.Stable, source, request.LotId));
         for (var attempt = 0; ; attempt++)
         {
-            var (head, additions) = await store.ProgressAsync(request.BatchId, cancellationToken) ?? throw ApiException.NotFound("batchId", request.BatchId, "batch");
+            var (head, additions, corrections) = await store.ProgressAsync(request.BatchId, cancellationToken) ?? throw ApiException.NotFound("batchId", request.BatchId, "batch");
             caller.RequireStation(head.StationId, "batchId");
             if (additions.FirstOrDefault(a => a.AdditionId == request.AdditionId) is { } earlier)
             {
@@ -49,7 +49,8 @@ public sealed class AdditionRecorder(BatchLedger ledger, BatchStore store, Batch
 
             var at = time.GetUtcNow();
             var trueMassG = inForce.Basis.TrueMassG(step.Index, request.ReadingG);
-            var stepMassG = trueMassG + additions.Where(a => a.StepIndex == step.Index).Sum(a => a.TrueMassG);
+            Addition[] soFar = [.. BatchMapping.Effective(additions, corrections)];
+            var stepMassG = trueMassG + soFar.Where(a => a.StepIndex == step.Index).Sum(a => a.TrueMassG);
             var addition = new Addition
             {
                 AdditionId = request.AdditionId,
@@ -59,14 +60,14 @@ public sealed class AdditionRecorder(BatchLedger ledger, BatchStore store, Batch
                 Source = source,
                 LotId = request.LotId,
                 TrueMassG = trueMassG,
-                // The relative slack keeps a reading exactly at the target in window when the band is zero.
-                WithinWindow = !step.Done && Math.Abs(stepMassG - step.TargetMassG) <= step.AcceptanceG + (1e-9 * step.TargetMassG),
+                WithinWindow = InWindow(step, stepMassG),
                 RecordedAt = Timestamp.FromDateTimeOffset(at),
                 PlanRevision = (int)inForce.Revision,
                 TargetMassG = step.TargetMassG,
                 AcceptanceG = step.AcceptanceG,
+                OriginalReadingG = request.ReadingG,
             };
-            Addition[] all = [.. additions.Select(BatchMapping.ToContract), addition];
+            Addition[] all = [.. soFar, addition];
             var outlook = addition.WithinWindow ? BatchOutlook.Keep(inForce, all) : BatchOutlook.Replan(inForce, all);
             var revision = outlook.Replanned ? inForce.Revision + 1 : inForce.Revision;
             var response = Response(addition, head.Id, inForce.Basis, all, outlook, revision);
@@ -102,11 +103,21 @@ public sealed class AdditionRecorder(BatchLedger ledger, BatchStore store, Batch
 
     public async Task<AsMade> AsMadeAsync(string batchId, CancellationToken cancellationToken)
     {
-        var (head, rows) = await store.ProgressAsync(batchId, cancellationToken) ?? throw ApiException.NotFound("batchId", batchId, "batch");
-        Addition[] additions = [.. rows.Select(BatchMapping.ToContract)];
+        var (head, rows, corrections) = await store.ProgressAsync(batchId, cancellationToken) ?? throw ApiException.NotFound("batchId", batchId, "batch");
+        Addition[] additions = [.. BatchMapping.Effective(rows, corrections)];
         var basis = await plans.BasisAsync(head.Id, cancellationToken);
         return AsMadeMapping.ToContract(head.Id, basis.AsMade(additions), StepsDone(additions));
     }
+
+    /// <summary>
+    /// Whether a step's true mass so far (g) lies within its acceptance band in the plan revision it is judged against;
+    /// never for a step a re-plan marked done. The relative slack keeps a reading exactly at the target in window when
+    /// the band is zero.
+    /// </summary>
+    public static bool InWindow(PlanStep step, double stepMassG) =>
+        !step.Done && Math.Abs(stepMassG - step.TargetMassG) <= step.AcceptanceG + (1e-9 * step.TargetMassG);
+
+    public static int StepsDone(IEnumerable<Addition> additions) => additions.Select(a => a.StepIndex).Distinct().Count();
 
     private static RecordAdditionResponse Response(
         Addition addition, string batchId, BatchBasis basis, IReadOnlyList<Addition> all, BatchOutlook outlook, long revision)
@@ -126,8 +137,6 @@ public sealed class AdditionRecorder(BatchLedger ledger, BatchStore store, Batch
         response.Warnings.AddRange(outlook.Warnings);
         return response;
     }
-
-    private static int StepsDone(IEnumerable<Addition> additions) => additions.Select(a => a.StepIndex).Distinct().Count();
 
     private async Task<RecordAdditionResponse> ReplayAsync(AdditionRow earlier, string contentHash, CancellationToken cancellationToken)
     {

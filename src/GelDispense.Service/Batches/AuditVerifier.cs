@@ -6,20 +6,20 @@ namespace GelDispense.Service.Batches;
 
 /// <summary>
 /// Recomputes a batch's hash chain from what is stored now and names the first event that no longer matches: a
-/// broken link (its prev_hash is not the hash of the event before it), a missing addition, or content (the event or
-/// the addition it records) changed after it was written.
+/// broken link (its prev_hash is not the hash of the event before it), a missing addition or correction, or content
+/// (the event, or the addition or correction it records) changed after it was written.
 /// </summary>
 public sealed class AuditVerifier(BatchStore store)
 {
     public async Task<VerifyBatchAuditResponse> VerifyAsync(string batchId, CancellationToken cancellationToken)
     {
         var batch = await store.FindAsync(batchId, cancellationToken) ?? throw ApiException.NotFound("batchId", batchId, "batch");
-        var (events, additions) = await store.AuditTrailAsync(batch.Id, cancellationToken);
+        var (events, additions, corrections) = await store.AuditTrailAsync(batch.Id, cancellationToken);
         var prevHash = "";
         for (var index = 0; index < events.Count; index++)
         {
             var entry = events[index];
-            if (Fault(entry, prevHash, additions) is { } reason)
+            if (Fault(entry, prevHash, additions, corrections) is { } reason)
             {
                 return new VerifyBatchAuditResponse
                 {
@@ -33,7 +33,8 @@ public sealed class AuditVerifier(BatchStore store)
         return new VerifyBatchAuditResponse { Ok = true, EventsChecked = events.Count };
     }
 
-    private static string? Fault(EventRow entry, string expectedPrevHash, IReadOnlyDictionary<string, AdditionRow> additions)
+    private static string? Fault(
+        EventRow entry, string expectedPrevHash, IReadOnlyDictionary<string, AdditionRow> additions, IReadOnlyDictionary<string, CorrectionRow> corrections)
     {
         if (entry.Hash.Length == 0)
         {
@@ -51,10 +52,17 @@ public sealed class AuditVerifier(BatchStore store)
             return $"event {entry.Seq}: addition '{entry.AdditionId}' it records is missing";
         }
 
-        var hash = AuditChain.Link(entry.PrevHash, AuditChain.Canonical(entry, addition));
+        CorrectionRow? correction = null;
+        if (entry.CorrectionId.Length > 0 && !corrections.TryGetValue(entry.CorrectionId, out correction))
+        {
+            return $"event {entry.Seq}: correction '{entry.CorrectionId}' it records is missing";
+        }
+
+        var hash = AuditChain.Link(entry.PrevHash, AuditChain.Canonical(entry, addition, correction));
         return string.Equals(hash, entry.Hash, StringComparison.Ordinal)
             ? null
             : $"event {entry.Seq} ({entry.Type}): stored content no longer matches its hash"
-              + (addition is null ? "" : $" (event or addition '{entry.AdditionId}' changed)");
+              + (addition is null ? "" : $" (event or addition '{entry.AdditionId}' changed)")
+              + (correction is null ? "" : $" (event or correction '{entry.CorrectionId}' changed)");
     }
 }

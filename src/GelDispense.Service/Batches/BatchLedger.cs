@@ -48,7 +48,7 @@ public sealed class BatchLedger(BatchStore store, BatchEventSignal signal, TimeP
     public async Task<Batch> GetAsync(string id, CancellationToken cancellationToken)
     {
         var row = await FindAsync(id, "id", cancellationToken);
-        return BatchMapping.ToContract(row, await store.AdditionsAsync([row.Id], cancellationToken));
+        return BatchMapping.ToContract(row, await store.AdditionsAsync([row.Id], cancellationToken), await store.CorrectionsAsync([row.Id], cancellationToken));
     }
 
     public async Task<BatchRow> FindAsync(string id, string field, CancellationToken cancellationToken) =>
@@ -94,12 +94,13 @@ public sealed class BatchLedger(BatchStore store, BatchEventSignal signal, TimeP
             string.IsNullOrEmpty(request.StationId) ? null : request.StationId, size + 1, cancellationToken);
         var page = rows.Take(size).ToArray();
         var additions = (await store.AdditionsAsync([.. page.Select(r => r.Id)], cancellationToken)).ToLookup(a => a.BatchId);
+        var corrections = (await store.CorrectionsAsync([.. page.Select(r => r.Id)], cancellationToken)).ToLookup(c => c.BatchId);
         var response = new ListBatchesResponse
         {
             NextPageToken = PageToken.Encode(page.Length > 0 ? page[^1].LastEventSeq : after),
             HasMore = rows.Count > size,
         };
-        response.Batches.AddRange(page.Select(r => BatchMapping.ToContract(r, additions[r.Id])));
+        response.Batches.AddRange(page.Select(r => BatchMapping.ToContract(r, additions[r.Id], corrections[r.Id])));
         return response;
     }
 

@@ -35,6 +35,7 @@ public static class ServiceCollectionExtensions
         services.AddSingleton<BatchLedger>();
         services.AddSingleton<BatchPlanCache>();
         services.AddSingleton<AdditionRecorder>();
+        services.AddSingleton<AdditionCorrector>();
         services.AddSingleton<AuditVerifier>();
         services.AddScoped<RequestLog>();
         return services;

@@ -17,6 +17,12 @@ public static class Policies
     /// <summary>Start batches, record additions, complete and abort; a station key only for its own station.</summary>
     public const string RunBatches = "batches.run";
 
+    /// <summary>
+    /// Correct a recorded addition's reading (a new audit event, never an edit): a station key only for its own
+    /// station's batches, and admins; not lims (reads the record) nor formulators (design only).
+    /// </summary>
+    public const string CorrectAdditions = "additions.correct";
+
     /// <summary>Read the catalog, batches, as-made records, the CSV export and the live event stream.</summary>
     public const string Read = "read";
 
@@ -29,6 +35,7 @@ public static class Policies
         options.AddPolicy(WriteCatalog, p => p.RequireRole(Roles.Admin));
         options.AddPolicy(Design, p => p.RequireRole(Roles.Admin, Roles.Formulator));
         options.AddPolicy(RunBatches, p => p.RequireRole(Roles.Admin, Roles.Station));
+        options.AddPolicy(CorrectAdditions, p => p.RequireRole(Roles.Admin, Roles.Station));
         options.AddPolicy(Read, p => p.RequireRole(Roles.All));
         options.AddPolicy(ReadAudit, p => p.RequireRole(Roles.Admin, Roles.Lims));
 

@@ -8,14 +8,16 @@ namespace GelDispense.Service.Storage;
 /// The per-batch hash chain over the event log. Each event's hash is SHA-256 over the previous event's hash and a
 /// canonical text of the event: a fixed field order, each field written as name, length and value (so no value can
 /// imitate a field boundary), numbers in the invariant culture with round-trip precision. An ADDITION_RECORDED
-/// event also covers the stored addition row, so a reading changed in the additions table breaks the chain too.
+/// event also covers the stored addition row, so a reading changed in the additions table breaks the chain too; an
+/// ADDITION_CORRECTED event covers its correction row the same way (the addition and event it corrects, the readings,
+/// the reason, who, where and when). Events of other kinds hash exactly as they did before corrections existed.
 /// </summary>
 public static class AuditChain
 {
     public static string Link(string prevHash, string canonical) =>
         Convert.ToHexString(SHA256.HashData(Encoding.UTF8.GetBytes(prevHash + canonical))).ToLowerInvariant();
 
-    public static string Canonical(EventRow entry, AdditionRow? addition)
+    public static string Canonical(EventRow entry, AdditionRow? addition, CorrectionRow? correction = null)
     {
         var text = new StringBuilder();
         Field(text, "seq", Number(entry.Seq));
@@ -41,6 +43,27 @@ public static class AuditChain
             Field(text, "addition.plan_revision", Number(addition.PlanRevision));
             Field(text, "addition.target_mass_g", Number(addition.TargetMassG));
             Field(text, "addition.acceptance_g", Number(addition.AcceptanceG));
+        }
+
+        if (entry.CorrectionId.Length > 0 || correction is not null)
+        {
+            Field(text, "correction_id", entry.CorrectionId);
+        }
+
+        if (correction is not null)
+        {
+            Field(text, "correction.correction_id", correction.CorrectionId);
+            Field(text, "correction.addition_id", correction.AdditionId);
+            Field(text, "correction.corrects_seq", Number(correction.CorrectsSeq));
+            Field(text, "correction.previous_reading_g", Number(correction.PreviousReadingG));
+            Field(text, "correction.reading_g", Number(correction.ReadingG));
+            Field(text, "correction.true_mass_g", Number(correction.TrueMassG));
+            Field(text, "correction.within_window", correction.WithinWindow ? "1" : "0");
+            Field(text, "correction.reason", correction.Reason);
+            Field(text, "correction.actor_key_id", correction.ActorKeyId);
+            Field(text, "correction.station_id", correction.StationId);
+            Field(text, "correction.recorded_at", correction.RecordedAt);
+            Field(text, "correction.content_hash", correction.ContentHash);
         }
 
         return text.ToString();

@@ -6,7 +6,7 @@ namespace GelDispense.Service.Storage;
 /// <summary>
 /// Batches, recipe revisions, additions and the event log. Every change to a batch is a version-checked
 /// update (optimistic concurrency): a writer that read an older version gets <see cref="WriteOutcome.Conflict"/>
-/// and must read again. Additions and events are only ever inserted.
+/// and must read again. Additions, their corrections and events are only ever inserted.
 /// </summary>
 public sealed class BatchStore(IDatabase database)
 {
@@ -23,6 +23,17 @@ public sealed class BatchStore(IDatabase database)
         SELECT batch_id, addition_id, ordinal, step_index, reading_g, stable, source, lot_id, true_mass_g,
                within_window, recorded_at, content_hash, plan_revision, target_mass_g, acceptance_g
         FROM additions
+        """;
+
+    private const string CorrectionColumns = """
+        c.batch_id, c.correction_id, c.addition_id, c.corrects_seq, c.previous_reading_g, c.reading_g, c.true_mass_g,
+        c.within_window, c.reason, c.actor_key_id, c.station_id, c.recorded_at, c.content_hash
+        """;
+
+    // The event's sequence comes along: it orders the corrections and is what a later correction supersedes.
+    private const string SelectCorrection = $"""
+        SELECT {CorrectionColumns}, e.seq
+        FROM addition_corrections c JOIN batch_events e ON e.batch_id = c.batch_id AND e.correction_id = c.correction_id
         """;
 
     static BatchStore() => DefaultTypeMap.MatchNamesWithUnderscores = true;
@@ -76,7 +87,8 @@ public sealed class BatchStore(IDatabase database)
         }
 
         var additions = await connection.QueryAsync<AdditionRow>($"{SelectAddition} WHERE batch_id = @id ORDER BY ordinal", new { id = head.Id });
-        return new BatchProgress(head, [.. additions]);
+        var corrections = await connection.QueryAsync<CorrectionRow>($"{SelectCorrection} WHERE c.batch_id = @id ORDER BY e.seq", new { id = head.Id });
+        return new BatchProgress(head, [.. additions], [.. corrections]);
     }
 
     /// <summary>What never changes about a batch: its recipe revision, its setup and its first plan (revision 0).</summary>
@@ -104,6 +116,36 @@ public sealed class BatchStore(IDatabase database)
         await using var connection = await database.OpenAsync(cancellationToken);
         return await connection.QuerySingleAsync<string>(
             "SELECT response FROM additions WHERE batch_id = @batchId AND addition_id = @additionId", new { batchId, additionId });
+    }
+
+    /// <summary>The response stored with a correction, which a replay of it returns.</summary>
+    public async Task<string> CorrectionResponseAsync(string batchId, string correctionId, CancellationToken cancellationToken)
+    {
+        await using var connection = await database.OpenAsync(cancellationToken);
+        return await connection.QuerySingleAsync<string>(
+            "SELECT response FROM addition_corrections WHERE batch_id = @batchId AND correction_id = @correctionId", new { batchId, correctionId });
+    }
+
+    /// <summary>The sequence of the event that recorded an addition; 0 for additions recorded before events named them.</summary>
+    public async Task<long> AdditionEventSeqAsync(string batchId, string additionId, CancellationToken cancellationToken)
+    {
+        await using var connection = await database.OpenAsync(cancellationToken);
+        return await connection.ExecuteScalarAsync<long?>(
+            "SELECT seq FROM batch_events WHERE batch_id = @batchId AND addition_id = @additionId", new { batchId, additionId }) ?? 0;
+    }
+
+    /// <summary>Corrections of the given batches' additions, oldest first within each batch.</summary>
+    public async Task<IReadOnlyList<CorrectionRow>> CorrectionsAsync(IReadOnlyCollection<string> batchIds, CancellationToken cancellationToken)
+    {
+        if (batchIds.Count == 0)
+        {
+            return [];
+        }
+
+        await using var connection = await database.OpenAsync(cancellationToken);
+        var rows = await connection.QueryAsync<CorrectionRow>(
+            $"{SelectCorrection} WHERE {database.AnyOf("c.batch_id", "batchIds")} ORDER BY e.seq", new { batchIds = batchIds.ToArray() });
+        return [.. rows];
     }
 
     public async Task<IReadOnlyList<AdditionRow>> AdditionsAsync(IReadOnlyCollection<string> batchIds, CancellationToken cancellationToken)
@@ -134,16 +176,26 @@ public sealed class BatchStore(IDatabase database)
                 VALUES (@BatchId, @AdditionId, @Ordinal, @StepIndex, @ReadingG, @Stable, @Source, @LotId, @TrueMassG,
                         @WithinWindow, @RecordedAt, @ContentHash, @Response, @PlanRevision, @TargetMassG, @AcceptanceG)
                 """, addition, transaction);
-            if (replan is not null)
+            await PutReplanInForceAsync(connection, transaction, replan);
+        });
+
+    /// <summary>
+    /// Appends a correction (and its event) if the batch is still at <paramref name="expectedVersion"/>; the addition
+    /// and earlier corrections stay as they are. A <paramref name="replan"/> becomes the next plan revision.
+    /// </summary>
+    public Task<WriteOutcome> TryAppendCorrectionAsync(
+        CorrectionRow correction, long expectedVersion, PlanRevisionRow? replan, string eventBody, DateTimeOffset at, CancellationToken cancellationToken) =>
+        WriteVersionedAsync(correction.BatchId, expectedVersion, at, "ADDITION_CORRECTED", eventBody,
+            new EventAudit(correction.ActorKeyId, correction.StationId), null, cancellationToken, async (connection, transaction) =>
             {
                 await connection.ExecuteAsync("""
-                    INSERT INTO plan_revisions (batch_id, revision, plan, scale_factor, cause_addition_id, created_at)
-                    VALUES (@BatchId, @Revision, @Plan, @ScaleFactor, @CauseAdditionId, @CreatedAt)
-                    """, replan, transaction);
-                await connection.ExecuteAsync(
-                    "UPDATE batches SET plan_revision = @Revision WHERE id = @BatchId", replan, transaction);
-            }
-        });
+                    INSERT INTO addition_corrections (batch_id, correction_id, addition_id, corrects_seq, previous_reading_g, reading_g, true_mass_g,
+                                                      within_window, reason, actor_key_id, station_id, recorded_at, content_hash, response)
+                    VALUES (@BatchId, @CorrectionId, @AdditionId, @CorrectsSeq, @PreviousReadingG, @ReadingG, @TrueMassG,
+                            @WithinWindow, @Reason, @ActorKeyId, @StationId, @RecordedAt, @ContentHash, @Response)
+                    """, correction, transaction);
+                await PutReplanInForceAsync(connection, transaction, replan);
+            }, correction);
 
     /// <summary>Moves the batch to another status if it is still at <paramref name="expectedVersion"/>.</summary>
     public Task<WriteOutcome> TrySetStatusAsync(
@@ -179,23 +231,28 @@ public sealed class BatchStore(IDatabase database)
         return [.. rows];
     }
 
-    /// <summary>A batch's events with their audit columns, oldest first, and its additions by id, read on one connection.</summary>
-    public async Task<(IReadOnlyList<EventRow> Events, IReadOnlyDictionary<string, AdditionRow> Additions)> AuditTrailAsync(
+    /// <summary>A batch's events with their audit columns, oldest first, and its additions and corrections by id, read on one connection.</summary>
+    public async Task<(IReadOnlyList<EventRow> Events, IReadOnlyDictionary<string, AdditionRow> Additions, IReadOnlyDictionary<string, CorrectionRow> Corrections)> AuditTrailAsync(
         string batchId, CancellationToken cancellationToken)
     {
         await using var connection = await database.OpenAsync(cancellationToken);
         var events = await connection.QueryAsync<EventRow>("""
-            SELECT seq, batch_id, type, body, occurred_at, actor_key_id, station_id, addition_id, prev_hash, hash
+            SELECT seq, batch_id, type, body, occurred_at, actor_key_id, station_id, addition_id, correction_id, prev_hash, hash
             FROM batch_events WHERE batch_id = @batchId ORDER BY seq
             """, new { batchId });
         var additions = await connection.QueryAsync<AdditionRow>($"{SelectAddition} WHERE batch_id = @batchId", new { batchId });
-        return ([.. events], additions.ToDictionary(a => a.AdditionId, StringComparer.Ordinal));
+        // Without the join: a correction whose event row was tampered with must still be found by its own id.
+        var corrections = await connection.QueryAsync<CorrectionRow>(
+            $"SELECT {CorrectionColumns} FROM addition_corrections c WHERE c.batch_id = @batchId", new { batchId });
+        return ([.. events], additions.ToDictionary(a => a.AdditionId, StringComparer.Ordinal),
+            corrections.ToDictionary(c => c.CorrectionId, StringComparer.Ordinal));
     }
 
     private async Task<WriteOutcome> WriteVersionedAsync(
         string batchId, long expectedVersion, DateTimeOffset at, string eventType, string eventBody, EventAudit audit, AdditionRow? addition,
         CancellationToken cancellationToken,
-        Func<DbConnection, DbTransaction, Task> write)
+        Func<DbConnection, DbTransaction, Task> write,
+        CorrectionRow? correction = null)
     {
         using var turn = await database.EnterWriteAsync(cancellationToken);
         await using var connection = await database.OpenAsync(cancellationToken);
@@ -218,7 +275,8 @@ public sealed class BatchStore(IDatabase database)
             {
                 Seq = seq, BatchId = batchId, Type = eventType, Body = eventBody, OccurredAt = TimeText.Format(at),
                 ActorKeyId = audit.ActorKeyId, StationId = audit.StationId, AdditionId = addition?.AdditionId ?? "",
-            }, addition);
+                CorrectionId = correction?.CorrectionId ?? "",
+            }, addition, correction);
             await transaction.CommitAsync(cancellationToken);
             return new WriteOutcome(true, seq);
         }
@@ -226,6 +284,20 @@ public sealed class BatchStore(IDatabase database)
         {
             return WriteOutcome.Conflict;
         }
+    }
+
+    private static async Task PutReplanInForceAsync(DbConnection connection, DbTransaction transaction, PlanRevisionRow? replan)
+    {
+        if (replan is null)
+        {
+            return;
+        }
+
+        await connection.ExecuteAsync("""
+            INSERT INTO plan_revisions (batch_id, revision, plan, scale_factor, cause_addition_id, created_at)
+            VALUES (@BatchId, @Revision, @Plan, @ScaleFactor, @CauseAdditionId, @CreatedAt)
+            """, replan, transaction);
+        await connection.ExecuteAsync("UPDATE batches SET plan_revision = @Revision WHERE id = @BatchId", replan, transaction);
     }
 
     private static async Task<long> RecipeRevisionAsync(DbConnection connection, DbTransaction transaction, NewBatch batch)

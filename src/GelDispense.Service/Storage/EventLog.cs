@@ -19,15 +19,15 @@ public static class EventLog
     /// Appends <paramref name="entry"/> (its hashes are ignored) chained to the batch's latest event. Writers of one
     /// batch are serialised by the batch row they claim first, so the latest event cannot change under this one.
     /// </summary>
-    public static async Task AppendAsync(DbConnection connection, DbTransaction transaction, EventRow entry, AdditionRow? addition)
+    public static async Task AppendAsync(DbConnection connection, DbTransaction transaction, EventRow entry, AdditionRow? addition, CorrectionRow? correction = null)
     {
         var prevHash = await connection.ExecuteScalarAsync<string?>(
             "SELECT hash FROM batch_events WHERE batch_id = @BatchId ORDER BY seq DESC LIMIT 1", new { entry.BatchId }, transaction) ?? "";
-        var hash = AuditChain.Link(prevHash, AuditChain.Canonical(entry, addition));
+        var hash = AuditChain.Link(prevHash, AuditChain.Canonical(entry, addition, correction));
         await connection.ExecuteAsync("""
-            INSERT INTO batch_events (seq, batch_id, type, body, occurred_at, actor_key_id, station_id, addition_id, prev_hash, hash)
-            VALUES (@Seq, @BatchId, @Type, @Body, @OccurredAt, @ActorKeyId, @StationId, @AdditionId, @prevHash, @hash)
-            """, new { entry.Seq, entry.BatchId, entry.Type, entry.Body, entry.OccurredAt, entry.ActorKeyId, entry.StationId, entry.AdditionId, prevHash, hash },
+            INSERT INTO batch_events (seq, batch_id, type, body, occurred_at, actor_key_id, station_id, addition_id, correction_id, prev_hash, hash)
+            VALUES (@Seq, @BatchId, @Type, @Body, @OccurredAt, @ActorKeyId, @StationId, @AdditionId, @CorrectionId, @prevHash, @hash)
+            """, new { entry.Seq, entry.BatchId, entry.Type, entry.Body, entry.OccurredAt, entry.ActorKeyId, entry.StationId, entry.AdditionId, entry.CorrectionId, prevHash, hash },
             transaction);
     }
 }

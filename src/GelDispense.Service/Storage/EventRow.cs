@@ -2,7 +2,7 @@ namespace GelDispense.Service.Storage;
 
 /// <summary>
 /// One entry of the batch event log; <see cref="Body"/> is a BatchEvent in protobuf JSON without its sequence.
-/// The audit columns say who wrote it, at which station and which addition it records, and chain it to the
+/// The audit columns say who wrote it, at which station and which addition or correction it records, and chain it to the
 /// batch's previous event (see <see cref="AuditChain"/>).
 /// </summary>
 public sealed class EventRow
@@ -17,6 +17,8 @@ public sealed class EventRow
     public string StationId { get; init; } = "";
     /// <summary>The addition an ADDITION_RECORDED event records; empty for other events.</summary>
     public string AdditionId { get; init; } = "";
+    /// <summary>The correction an ADDITION_CORRECTED event records; empty for other events.</summary>
+    public string CorrectionId { get; init; } = "";
     public string PrevHash { get; init; } = "";
     public string Hash { get; init; } = "";
 }

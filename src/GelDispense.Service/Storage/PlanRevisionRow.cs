@@ -8,7 +8,7 @@ public sealed class PlanRevisionRow
     public string Plan { get; init; } = "";
     /// <summary>Final batch size relative to the batch as first planned.</summary>
     public double ScaleFactor { get; init; }
-    /// <summary>The out-of-window addition that caused the re-plan.</summary>
+    /// <summary>The out-of-window addition that caused the re-plan, or the addition whose correction did.</summary>
     public string CauseAdditionId { get; init; } = "";
     public string CreatedAt { get; init; } = "";
 }
