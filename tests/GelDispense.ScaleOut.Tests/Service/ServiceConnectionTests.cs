@@ -1,3 +1,4 @@
+using GelDispense.Agent.Configuration;
 using GelDispense.Agent.Service;
 using GelDispense.ScaleOut.Tests.ScaleOut;
 using GelDispense.ScaleOut.Tests.Support;
@@ -7,11 +8,11 @@ using Grpc.Net.Client;
 namespace GelDispense.ScaleOut.Tests.Service;
 
 /// <summary>
-/// The agent's service link given both replicas' addresses: replica A is killed while the station is still adding,
-/// and the rest of the batch goes through B on the same database.
+/// The agent's service connection opened from a station config naming replica A as its service and B as standby:
+/// A is killed while the station is still adding, and the rest of the batch goes through B on the same database.
 /// </summary>
 [Collection(ScaleOutCollection.Name)]
-public sealed class FailoverCallInvokerTests(PostgresCluster cluster)
+public sealed class ServiceConnectionTests(PostgresCluster cluster)
 {
     private const int Additions = 20;
 
@@ -30,8 +31,9 @@ public sealed class FailoverCallInvokerTests(PostgresCluster cluster)
     public async Task When_replica_A_dies_mid_batch_the_link_carries_on_through_B_and_no_addition_is_lost_or_doubled()
     {
         await using var pair = await ReplicaPair.StartAsync(cluster.Server, "scaleout_failover");
-        using var invoker = new FailoverCallInvoker([pair.A.Grpc, pair.B.Grpc], Quick);
-        var link = new ServiceLink(invoker, "A then B", Quick, TimeProvider.System, pair.AdminKey);
+        var config = new StationConfig { ServiceAddress = pair.A.Grpc.ToString(), StandbyAddresses = [pair.B.Grpc.ToString()], ApiKey = pair.AdminKey };
+        using var connection = ServiceConnection.Open(config, Quick, TimeProvider.System);
+        var link = connection.Link;
         var batch = await link.CreateBatchAsync(TwoReplicasTests.DemoRequest(), default);
         var planned = PlannedAddition.Split(batch, Additions, "failover");
         var halfway = new TaskCompletionSource(TaskCreationOptions.RunContinuationsAsynchronously);
@@ -42,7 +44,7 @@ public sealed class FailoverCallInvokerTests(PostgresCluster cluster)
         {
             foreach (var addition in planned)
             {
-                servedBy.Add(invoker.Current);
+                servedBy.Add(connection.Current);
                 await link.RecordAdditionAsync(new RecordAdditionRequest
                 {
                     BatchId = batch.Id, AdditionId = addition.AdditionId, StepIndex = addition.StepIndex, ReadingG = addition.ReadingG, Stable = true, LotId = addition.LotId,
@@ -59,7 +61,7 @@ public sealed class FailoverCallInvokerTests(PostgresCluster cluster)
         await station;
         Console.WriteLine($"failover: the second half of the batch went through B {(DateTime.UtcNow - killedAt).TotalSeconds:0.00} s after A was killed");
 
-        Assert.Equal(pair.B.Grpc, invoker.Current);
+        Assert.Equal(pair.B.Grpc, connection.Current);
         Assert.Equal(pair.A.Grpc, servedBy[0]);
         Assert.Equal(pair.B.Grpc, servedBy[^1]);
         Assert.Equal(ServiceStatus.Online, link.Status);
