@@ -23,7 +23,10 @@ public sealed class RequestLimits
     /// <summary>Slowest request body Kestrel accepts after the grace period (slow bodies); Kestrel's own default.</summary>
     public double MinRequestBodyBytesPerSecond { get; set; } = 240;
 
-    /// <summary>Time a request body may trickle below <see cref="MinRequestBodyBytesPerSecond"/> before it is cut off.</summary>
+    /// <summary>
+    /// Time a request body may trickle below <see cref="MinRequestBodyBytesPerSecond"/> before it is cut off; above 1 s,
+    /// since Kestrel checks the rate on a one-second heartbeat.
+    /// </summary>
     public double MinRequestBodyGraceSeconds { get; set; } = 5;
 
     /// <summary>Longest a REST call may run; past it the call is cancelled and answered 504. 0 turns it off.</summary>
@@ -54,13 +57,18 @@ public sealed class RequestLimits
         foreach (var (name, value) in new[]
         {
             (nameof(RequestHeadersTimeoutSeconds), RequestHeadersTimeoutSeconds), (nameof(KeepAliveTimeoutSeconds), KeepAliveTimeoutSeconds),
-            (nameof(MinRequestBodyBytesPerSecond), MinRequestBodyBytesPerSecond), (nameof(MinRequestBodyGraceSeconds), MinRequestBodyGraceSeconds),
+            (nameof(MinRequestBodyBytesPerSecond), MinRequestBodyBytesPerSecond),
         })
         {
             if (!(value > 0) || double.IsInfinity(value))
             {
                 yield return Problem(name, value, "must be a finite number above 0");
             }
+        }
+
+        if (!(MinRequestBodyGraceSeconds > 1) || double.IsInfinity(MinRequestBodyGraceSeconds))
+        {
+            yield return Problem(nameof(MinRequestBodyGraceSeconds), MinRequestBodyGraceSeconds, "must be a finite number above 1");
         }
 
         foreach (var (name, value) in new[]
