@@ -17,10 +17,16 @@ public static class AuditChain
     public static string Link(string prevHash, string canonical) =>
         Convert.ToHexString(SHA256.HashData(Encoding.UTF8.GetBytes(prevHash + canonical))).ToLowerInvariant();
 
-    public static string Canonical(EventRow entry, AdditionRow? addition, CorrectionRow? correction = null)
+    public static string Canonical(EventRow entry, AdditionRow? addition, CorrectionRow? correction = null) =>
+        Field(new StringBuilder(), "seq", Number(entry.Seq)).Append(AfterSeq(entry, addition, correction)).ToString();
+
+    /// <summary>
+    /// The canonical text after its first field, the sequence number: all a writer can build before the number is
+    /// drawn (<see cref="EventLog"/> on PostgreSQL writes the seq field and the hash in SQL, to the same bytes).
+    /// </summary>
+    public static string AfterSeq(EventRow entry, AdditionRow? addition, CorrectionRow? correction = null)
     {
         var text = new StringBuilder();
-        Field(text, "seq", Number(entry.Seq));
         Field(text, "batch_id", entry.BatchId);
         Field(text, "type", entry.Type);
         Field(text, "occurred_at", entry.OccurredAt);
@@ -74,6 +80,6 @@ public static class AuditChain
     // "R" gives the shortest text that parses back to the same double, which both engines store exactly.
     private static string Number(double value) => value.ToString("R", CultureInfo.InvariantCulture);
 
-    private static void Field(StringBuilder text, string name, string value) =>
+    private static StringBuilder Field(StringBuilder text, string name, string value) =>
         text.Append(name).Append(':').Append(value.Length.ToString(CultureInfo.InvariantCulture)).Append(':').Append(value).Append('\n');
 }

@@ -47,17 +47,16 @@ public sealed class BatchStore(IDatabase database)
         try
         {
             var revisionId = await RecipeRevisionAsync(connection, transaction, batch);
-            var seq = await EventLog.NextSequenceAsync(connection, transaction);
+            // The batch points at its first event once that has its number (EventLog).
             await connection.ExecuteAsync("""
                 INSERT INTO batches (id, station_id, status, recipe_revision_id, setup, plan, abort_reason, created_at, updated_at, version, last_event_seq)
-                VALUES (@Id, @StationId, @Status, @revisionId, @Setup, @Plan, '', @at, @at, 1, @seq)
-                """, new { batch.Id, batch.StationId, batch.Status, revisionId, batch.Setup, batch.Plan, at = TimeText.Format(batch.At), seq }, transaction);
-            await EventLog.AppendAsync(connection, transaction, new EventRow
+                VALUES (@Id, @StationId, @Status, @revisionId, @Setup, @Plan, '', @at, @at, 1, 0)
+                """, new { batch.Id, batch.StationId, batch.Status, revisionId, batch.Setup, batch.Plan, at = TimeText.Format(batch.At) }, transaction);
+            await EventLog.AppendAndCommitAsync(database, connection, transaction, seq => new EventRow
             {
                 Seq = seq, BatchId = batch.Id, Type = batch.EventType, Body = batch.EventBody, OccurredAt = TimeText.Format(batch.At),
                 ActorKeyId = batch.ActorKeyId, StationId = batch.StationId,
-            }, null);
-            await transaction.CommitAsync(cancellationToken);
+            }, null, null, cancellationToken);
             return true;
         }
         catch (DbException e) when (database.IsConflict(e))
@@ -269,15 +268,12 @@ public sealed class BatchStore(IDatabase database)
             }
 
             await write(connection, transaction);
-            var seq = await EventLog.NextSequenceAsync(connection, transaction);
-            await connection.ExecuteAsync("UPDATE batches SET last_event_seq = @seq WHERE id = @batchId", new { seq, batchId }, transaction);
-            await EventLog.AppendAsync(connection, transaction, new EventRow
+            var seq = await EventLog.AppendAndCommitAsync(database, connection, transaction, next => new EventRow
             {
-                Seq = seq, BatchId = batchId, Type = eventType, Body = eventBody, OccurredAt = TimeText.Format(at),
+                Seq = next, BatchId = batchId, Type = eventType, Body = eventBody, OccurredAt = TimeText.Format(at),
                 ActorKeyId = audit.ActorKeyId, StationId = audit.StationId, AdditionId = addition?.AdditionId ?? "",
                 CorrectionId = correction?.CorrectionId ?? "",
-            }, addition, correction);
-            await transaction.CommitAsync(cancellationToken);
+            }, addition, correction, cancellationToken);
             return new WriteOutcome(true, seq);
         }
         catch (DbException e) when (database.IsConflict(e))

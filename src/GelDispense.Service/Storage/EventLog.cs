@@ -7,27 +7,57 @@ namespace GelDispense.Service.Storage;
 /// The service-wide batch event log. Sequence numbers come from bumping a single counter row inside the
 /// writing transaction: its row lock is held until commit, so numbers are handed out in commit order and a
 /// reader paging by sequence never skips an event that commits late (a plain sequence or autoincrement
-/// would allow that on PostgreSQL).
+/// would allow that on PostgreSQL). Every write of every batch passes through that one row, so a write does all
+/// it can before bumping it; on PostgreSQL the bump, the event, the batch's pointer and the commit then go in one
+/// statement, and the row is held for no round trip to the service at all.
 /// </summary>
 public static class EventLog
 {
-    public static Task<long> NextSequenceAsync(DbConnection connection, DbTransaction transaction) =>
-        connection.ExecuteScalarAsync<long>(
-            "UPDATE event_sequence SET last_seq = last_seq + 1 WHERE id = 1 RETURNING last_seq", transaction: transaction);
-
     /// <summary>
-    /// Appends <paramref name="entry"/> (its hashes are ignored) chained to the batch's latest event. Writers of one
-    /// batch are serialised by the batch row they claim first, so the latest event cannot change under this one.
+    /// Appends the event <paramref name="entryAt"/> makes for its sequence number (its hashes are ignored), chained to
+    /// the batch's latest event, points the batch at it and commits the transaction; returns the sequence number. The
+    /// latest hash is read before the counter is bumped: writers of one batch are serialised by the batch row they
+    /// claim (or create) first, so it cannot change under this one.
     /// </summary>
-    public static async Task AppendAsync(DbConnection connection, DbTransaction transaction, EventRow entry, AdditionRow? addition, CorrectionRow? correction = null)
+    public static async Task<long> AppendAndCommitAsync(
+        IDatabase database, DbConnection connection, DbTransaction transaction, Func<long, EventRow> entryAt, AdditionRow? addition,
+        CorrectionRow? correction, CancellationToken cancellationToken)
     {
+        var draft = entryAt(0);
         var prevHash = await connection.ExecuteScalarAsync<string?>(
-            "SELECT hash FROM batch_events WHERE batch_id = @BatchId ORDER BY seq DESC LIMIT 1", new { entry.BatchId }, transaction) ?? "";
+            "SELECT hash FROM batch_events WHERE batch_id = @BatchId ORDER BY seq DESC LIMIT 1", new { draft.BatchId }, transaction) ?? "";
+        if (database.Engine == PostgresDatabase.EngineName)
+        {
+            // The hash as AuditChain.Link(prevHash, AuditChain.Canonical(entry)) computes it: the seq field (name, length,
+            // value, newline) is written here because only this statement knows the number. COMMIT rides in the same
+            // round trip; Npgsql sees the transaction end and the caller's dispose has nothing left to roll back.
+            return await connection.ExecuteScalarAsync<long>("""
+                WITH next AS (UPDATE event_sequence SET last_seq = last_seq + 1 WHERE id = 1 RETURNING last_seq AS seq),
+                event AS (
+                    INSERT INTO batch_events (seq, batch_id, type, body, occurred_at, actor_key_id, station_id, addition_id, correction_id, prev_hash, hash)
+                    SELECT seq, @BatchId, @Type, @Body, @OccurredAt, @ActorKeyId, @StationId, @AdditionId, @CorrectionId, @prevHash,
+                           encode(sha256(convert_to(@prevHash || 'seq:' || length(seq::text) || ':' || seq::text || chr(10) || @afterSeq, 'UTF8')), 'hex')
+                    FROM next
+                    RETURNING seq)
+                UPDATE batches SET last_event_seq = event.seq FROM event WHERE batches.id = @BatchId RETURNING event.seq;
+                COMMIT
+                """, new
+            {
+                draft.BatchId, draft.Type, draft.Body, draft.OccurredAt, draft.ActorKeyId, draft.StationId, draft.AdditionId, draft.CorrectionId, prevHash,
+                afterSeq = AuditChain.AfterSeq(draft, addition, correction),
+            }, transaction);
+        }
+
+        var entry = entryAt(await connection.ExecuteScalarAsync<long>(
+            "UPDATE event_sequence SET last_seq = last_seq + 1 WHERE id = 1 RETURNING last_seq", transaction: transaction));
         var hash = AuditChain.Link(prevHash, AuditChain.Canonical(entry, addition, correction));
         await connection.ExecuteAsync("""
+            UPDATE batches SET last_event_seq = @Seq WHERE id = @BatchId;
             INSERT INTO batch_events (seq, batch_id, type, body, occurred_at, actor_key_id, station_id, addition_id, correction_id, prev_hash, hash)
             VALUES (@Seq, @BatchId, @Type, @Body, @OccurredAt, @ActorKeyId, @StationId, @AdditionId, @CorrectionId, @prevHash, @hash)
             """, new { entry.Seq, entry.BatchId, entry.Type, entry.Body, entry.OccurredAt, entry.ActorKeyId, entry.StationId, entry.AdditionId, entry.CorrectionId, prevHash, hash },
             transaction);
+        await transaction.CommitAsync(cancellationToken);
+        return entry.Seq;
     }
 }

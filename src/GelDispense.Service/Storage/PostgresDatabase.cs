@@ -8,7 +8,9 @@ public sealed class PostgresDatabase(string connectionString, TimeProvider time)
 {
     private readonly NpgsqlDataSource _dataSource = NpgsqlDataSource.Create(connectionString);
 
-    public override string Engine => "Postgres";
+    public const string EngineName = "Postgres";
+
+    public override string Engine => EngineName;
 
     // Any fixed key will do; it only has to be the same for every replica of this service.
     public override string MigrationLockSql => "SELECT pg_advisory_xact_lock(7346201)";
