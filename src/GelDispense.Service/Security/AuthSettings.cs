@@ -17,6 +17,12 @@ public sealed class AuthSettings
     /// <summary>Bursts a key may make above its steady rate.</summary>
     public int BurstPerKey { get; set; } = 400;
 
+    /// <summary>
+    /// PEM or DER file of the site CA that client certificates must chain to, for endpoints with a
+    /// ClientCertificateMode; unset, Kestrel judges them against the machine trust store.
+    /// </summary>
+    public string? ClientCertificateCaFile { get; set; }
+
     /// <summary>Set <c>Auth:Jwt:Authority</c> (an OpenID Connect issuer) to accept its tokens beside API keys.</summary>
     public JwtSettings Jwt { get; set; } = new();
 

@@ -15,7 +15,7 @@ public sealed class KestrelExtensionsTests
     public async Task A_client_that_stalls_halfway_through_its_headers_is_cut_off_after_the_configured_headers_timeout()
     {
         await using var host = await KestrelHost.StartAsync(new Dictionary<string, string> { ["Limits:RequestHeadersTimeoutSeconds"] = "1" });
-        using var connection = await RawConnection.OpenAsync(host.RestPort);
+        using var connection = await RawSocket.OpenAsync(host.RestPort);
         await connection.SendAsync("GET /healthz HTTP/1.1\r\nHost: 127.0.0.1\r\nAccept: ");
 
         var (received, closed) = await connection.ReadUntilClosedAsync(Bound);
@@ -29,7 +29,7 @@ public sealed class KestrelExtensionsTests
     public async Task An_idle_keep_alive_connection_is_closed_after_the_configured_keep_alive_timeout()
     {
         await using var host = await KestrelHost.StartAsync(new Dictionary<string, string> { ["Limits:KeepAliveTimeoutSeconds"] = "1" });
-        using var connection = await RawConnection.OpenAsync(host.RestPort);
+        using var connection = await RawSocket.OpenAsync(host.RestPort);
         await connection.SendAsync("GET /healthz HTTP/1.1\r\nHost: 127.0.0.1\r\n\r\n");
 
         var (received, closed) = await connection.ReadUntilClosedAsync(Bound);
@@ -46,7 +46,7 @@ public sealed class KestrelExtensionsTests
             ["Limits:MinRequestBodyBytesPerSecond"] = "240",
             ["Limits:MinRequestBodyGraceSeconds"] = "1.5",
         });
-        using var connection = await RawConnection.OpenAsync(host.RestPort);
+        using var connection = await RawSocket.OpenAsync(host.RestPort);
         await connection.SendAsync(
             "POST /v1/ping HTTP/1.1\r\nHost: 127.0.0.1\r\nContent-Type: application/json\r\nContent-Length: 4000\r\n\r\n{");
 
