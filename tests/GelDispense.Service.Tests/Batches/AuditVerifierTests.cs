@@ -1,11 +1,8 @@
-using System.Data.Common;
 using System.Text.Json.Nodes;
 using Dapper;
 using GelDispense.Service.Security;
 using GelDispense.Service.Tests.Infrastructure;
-using Microsoft.Data.Sqlite;
 using Microsoft.Extensions.DependencyInjection;
-using Npgsql;
 
 namespace GelDispense.Service.Tests.Batches;
 
@@ -28,7 +25,7 @@ public sealed class AuditVerifierTests(ApiHosts hosts)
         Assert.Equal(4, (int)verdict["eventsChecked"]!);
         Assert.Equal("", (string)verdict["reason"]!);
 
-        await using var connection = await OpenRawAsync(host);
+        await using var connection = await RawDatabase.OpenAsync(host);
         var events = (await connection.QueryAsync<(string Actor, string Station, string Type)>(
             "SELECT actor_key_id, station_id, type FROM batch_events WHERE batch_id = @id ORDER BY seq", new { id })).ToList();
         Assert.Equal(["Created", "ADDITION_RECORDED", "ADDITION_RECORDED", "Completed"], events.Select(e => e.Type));
@@ -40,7 +37,7 @@ public sealed class AuditVerifierTests(ApiHosts hosts)
     {
         var host = await hosts.ForAsync(engine);
         var (_, id) = await RunBatchAsync(host, "bench-audit-2");
-        await using (var connection = await OpenRawAsync(host))
+        await using (var connection = await RawDatabase.OpenAsync(host))
         {
             var changed = await connection.ExecuteAsync(
                 "UPDATE additions SET reading_g = reading_g + 0.001 WHERE batch_id = @id AND addition_id = 'audit-a1'", new { id });
@@ -61,7 +58,7 @@ public sealed class AuditVerifierTests(ApiHosts hosts)
         var host = await hosts.ForAsync(engine);
         var (_, id) = await RunBatchAsync(host, "bench-audit-3");
         var secondAddition = await SeqAsync(host, id, 2);
-        await using (var connection = await OpenRawAsync(host))
+        await using (var connection = await RawDatabase.OpenAsync(host))
         {
             var changed = await connection.ExecuteAsync(
                 "UPDATE batch_events SET body = REPLACE(body, 'audit-a2', 'audit-x2') WHERE seq = @secondAddition", new { secondAddition });
@@ -73,6 +70,34 @@ public sealed class AuditVerifierTests(ApiHosts hosts)
         Assert.Equal(2, (int)verdict["firstBrokenIndex"]!);
         Assert.Equal(secondAddition, (long)verdict["firstBrokenSequence"]!);
         Assert.Contains("no longer matches", (string)verdict["reason"]!, StringComparison.Ordinal);
+    }
+
+    [Theory, SqliteEngine, PostgresEngine]
+    public async Task Corrections_join_the_chain_and_a_correction_row_changed_in_the_database_breaks_it_at_that_correction(string engine)
+    {
+        var host = await hosts.ForAsync(engine);
+        var (_, id) = await RunBatchAsync(host, "bench-audit-5");
+        var admin = host.CreateClient();
+        await Demo.PostAsync(admin, Corrections.Path(id, "audit-a1"), Corrections.Body("audit-c1", 20.5, "printout shows 20.5 g"));
+        await Demo.PostAsync(admin, Corrections.Path(id, "audit-a2"), Corrections.Body("audit-c2", 30.25, "printout shows 30.25 g"));
+        var clean = await VerifyAsync(host, id);
+        Assert.True((bool)clean["ok"]!, clean.ToJsonString());
+        Assert.Equal(6, (int)clean["eventsChecked"]!);
+
+        await using (var connection = await RawDatabase.OpenAsync(host))
+        {
+            var changed = await connection.ExecuteAsync(
+                "UPDATE addition_corrections SET reading_g = 20.55 WHERE batch_id = @id AND correction_id = 'audit-c1'", new { id });
+            Assert.Equal(1, changed);
+        }
+
+        // Events: created, two additions, completed, then the two corrections; the first correction is the broken link.
+        var verdict = await VerifyAsync(host, id);
+        Assert.False((bool)verdict["ok"]!);
+        Assert.Equal(4, (int)verdict["firstBrokenIndex"]!);
+        Assert.Equal(5, (int)verdict["eventsChecked"]!);
+        Assert.Equal(await SeqAsync(host, id, 4), (long)verdict["firstBrokenSequence"]!);
+        Assert.Contains("audit-c1", (string)verdict["reason"]!, StringComparison.Ordinal);
     }
 
     [Theory, SqliteEngine]
@@ -106,14 +131,7 @@ public sealed class AuditVerifierTests(ApiHosts hosts)
 
     private static async Task<long> SeqAsync(ServiceHost host, string id, int index)
     {
-        await using var connection = await OpenRawAsync(host);
+        await using var connection = await RawDatabase.OpenAsync(host);
         return (await connection.QueryAsync<long>("SELECT seq FROM batch_events WHERE batch_id = @id ORDER BY seq", new { id })).ElementAt(index);
-    }
-
-    private static async Task<DbConnection> OpenRawAsync(ServiceHost host)
-    {
-        DbConnection connection = host.Engine == "Sqlite" ? new SqliteConnection(host.ConnectionString) : new NpgsqlConnection(host.ConnectionString);
-        await connection.OpenAsync();
-        return connection;
     }
 }
