@@ -32,10 +32,13 @@ public static class HistorySeeder
 
         // Three passes over the same deterministic history, one COPY each: a connection runs one COPY at a time,
         // and batch rows must be in before the additions and events that reference them.
-        await using (var copy = await BeginAsync(connection, "batches (id, station_id, status, recipe_revision_id, setup, plan, abort_reason, created_at, updated_at, version, last_event_seq, plan_revision)"))
+        await using (var copy = await BeginAsync(connection, "batches (id, station_id, status, recipe_revision_id, setup, plan, abort_reason, created_at, updated_at, version, last_event_seq, plan_revision, high_water_at)"))
         {
+            // Batches come in event order, so the high water is the running maximum of their times (migration 0007).
+            var highWaterAt = "";
             foreach (var batch in groups().SelectMany(g => g))
             {
+                highWaterAt = string.CompareOrdinal(batch.UpdatedAt, highWaterAt) > 0 ? batch.UpdatedAt : highWaterAt;
                 await copy.StartRowAsync();
                 await WriteTextsAsync(copy, batch.Id, batch.StationId, batch.Status.ToString());
                 await copy.WriteAsync(template.RecipeRevisionId, NpgsqlDbType.Bigint);
@@ -43,6 +46,7 @@ public static class HistorySeeder
                 await copy.WriteAsync((long)SeededBatch.EventsPerBatch, NpgsqlDbType.Bigint);
                 await copy.WriteAsync(batch.LastEventSeq, NpgsqlDbType.Bigint);
                 await copy.WriteAsync(0L, NpgsqlDbType.Bigint);
+                await copy.WriteAsync(highWaterAt, NpgsqlDbType.Text);
             }
 
             await copy.CompleteAsync();
@@ -99,7 +103,7 @@ public static class HistorySeeder
             {
                 new("DELETE FROM batch_events WHERE batch_id = $1") { Parameters = { new() { Value = templateId } } },
                 new("DELETE FROM batches WHERE id = $1") { Parameters = { new() { Value = templateId } } },
-                new("UPDATE event_sequence SET last_seq = $1") { Parameters = { new() { Value = all[^1].LastEventSeq } } },
+                new("UPDATE event_sequence SET last_seq = $1, high_water_at = $2") { Parameters = { new() { Value = all[^1].LastEventSeq }, new() { Value = all.Select(b => b.UpdatedAt).Max(StringComparer.Ordinal)! } } },
             },
         };
         await finish.ExecuteNonQueryAsync();

@@ -205,15 +205,24 @@ public sealed class BatchStore(IDatabase database)
                 "UPDATE batches SET status = @status, abort_reason = @abortReason WHERE id = @batchId",
                 new { status, abortReason, batchId }, transaction));
 
-    /// <summary>Batches whose latest event is after <paramref name="afterSeq"/>, in event order (the LIMS keyset).</summary>
+    /// <summary>
+    /// Batches whose latest event is after <paramref name="afterSeq"/>, in event order (the LIMS keyset). With
+    /// <paramref name="updatedAfter"/>, the walk starts at the first batch whose high water (migration 0007) is after
+    /// it: every batch before that one in event order changed at or before that time, so none of them is read.
+    /// </summary>
     public async Task<IReadOnlyList<BatchRow>> ListChangedAsync(
         long afterSeq, DateTimeOffset? updatedAfter, string? stationId, int limit, CancellationToken cancellationToken)
     {
+        var changedAfter = updatedAfter is null ? "" : """
+              AND b.updated_at > @updatedAfter
+              AND b.last_event_seq >= (SELECT w.last_event_seq FROM batches w WHERE w.high_water_at > @updatedAfter
+                                       ORDER BY w.high_water_at, w.last_event_seq LIMIT 1)
+            """;
         await using var connection = await database.OpenAsync(cancellationToken);
         var rows = await connection.QueryAsync<BatchRow>($"""
             {SelectBatch}
             WHERE b.last_event_seq > @afterSeq
-              AND (@updatedAfter IS NULL OR b.updated_at > @updatedAfter)
+            {changedAfter}
               AND (@stationId IS NULL OR b.station_id = @stationId)
             ORDER BY b.last_event_seq
             LIMIT @limit

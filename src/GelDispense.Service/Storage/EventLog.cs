@@ -9,7 +9,9 @@ namespace GelDispense.Service.Storage;
 /// reader paging by sequence never skips an event that commits late (a plain sequence or autoincrement
 /// would allow that on PostgreSQL). Every write of every batch passes through that one row, so a write does all
 /// it can before bumping it; on PostgreSQL the bump, the event, the batch's pointer and the commit then go in one
-/// statement, and the row is held for no round trip to the service at all.
+/// statement, and the row is held for no round trip to the service at all. The counter row also keeps the running
+/// maximum of the batches' updated_at in sequence order, and each write stamps it on its batch as high_water_at
+/// (migration 0007), where the LIMS list's "changed after" filter finds where in the event order to start.
 /// </summary>
 public static class EventLog
 {
@@ -32,14 +34,18 @@ public static class EventLog
             // value, newline) is written here because only this statement knows the number. COMMIT rides in the same
             // round trip; Npgsql sees the transaction end and the caller's dispose has nothing left to roll back.
             return await connection.ExecuteScalarAsync<long>("""
-                WITH next AS (UPDATE event_sequence SET last_seq = last_seq + 1 WHERE id = 1 RETURNING last_seq AS seq),
+                WITH next AS (
+                    UPDATE event_sequence SET last_seq = last_seq + 1,
+                        high_water_at = GREATEST(high_water_at, (SELECT updated_at FROM batches WHERE id = @BatchId))
+                    WHERE id = 1 RETURNING last_seq AS seq, high_water_at),
                 event AS (
                     INSERT INTO batch_events (seq, batch_id, type, body, occurred_at, actor_key_id, station_id, addition_id, correction_id, prev_hash, hash)
                     SELECT seq, @BatchId, @Type, @Body, @OccurredAt, @ActorKeyId, @StationId, @AdditionId, @CorrectionId, @prevHash,
                            encode(sha256(convert_to(@prevHash || 'seq:' || length(seq::text) || ':' || seq::text || chr(10) || @afterSeq, 'UTF8')), 'hex')
                     FROM next
                     RETURNING seq)
-                UPDATE batches SET last_event_seq = event.seq FROM event WHERE batches.id = @BatchId RETURNING event.seq;
+                UPDATE batches SET last_event_seq = event.seq, high_water_at = next.high_water_at FROM event, next WHERE batches.id = @BatchId
+                RETURNING event.seq;
                 COMMIT
                 """, new
             {
@@ -48,11 +54,14 @@ public static class EventLog
             }, transaction);
         }
 
-        var entry = entryAt(await connection.ExecuteScalarAsync<long>(
-            "UPDATE event_sequence SET last_seq = last_seq + 1 WHERE id = 1 RETURNING last_seq", transaction: transaction));
+        var entry = entryAt(await connection.ExecuteScalarAsync<long>("""
+            UPDATE event_sequence SET last_seq = last_seq + 1,
+                high_water_at = MAX(high_water_at, (SELECT updated_at FROM batches WHERE id = @BatchId))
+            WHERE id = 1 RETURNING last_seq
+            """, new { draft.BatchId }, transaction));
         var hash = AuditChain.Link(prevHash, AuditChain.Canonical(entry, addition, correction));
         await connection.ExecuteAsync("""
-            UPDATE batches SET last_event_seq = @Seq WHERE id = @BatchId;
+            UPDATE batches SET last_event_seq = @Seq, high_water_at = (SELECT high_water_at FROM event_sequence WHERE id = 1) WHERE id = @BatchId;
             INSERT INTO batch_events (seq, batch_id, type, body, occurred_at, actor_key_id, station_id, addition_id, correction_id, prev_hash, hash)
             VALUES (@Seq, @BatchId, @Type, @Body, @OccurredAt, @ActorKeyId, @StationId, @AdditionId, @CorrectionId, @prevHash, @hash)
             """, new { entry.Seq, entry.BatchId, entry.Type, entry.Body, entry.OccurredAt, entry.ActorKeyId, entry.StationId, entry.AdditionId, entry.CorrectionId, prevHash, hash },

@@ -39,6 +39,35 @@ public sealed class BatchStoreTests(ApiHosts hosts)
         Assert.NotEqual((double)batch["steps"]![2]!["targetMassG"]!, latest.Steps[2].TargetMassG, 6);
     }
 
+    [Theory, SqliteEngine, PostgresEngine]
+    public async Task Changed_after_a_time_finds_a_batch_stamped_later_than_batches_after_it_in_event_order(string engine)
+    {
+        // Replicas' clocks differ, and a writer reads its clock before it takes its sequence number, so a batch later
+        // in event order can carry an earlier time. Every batch changed after the time must still be listed, in event order.
+        var host = await hosts.ServiceHostOnNewDatabaseAsync(engine);
+        await using var _ = host;
+        var store = host.Services.GetRequiredService<BatchStore>();
+        var nine = new DateTimeOffset(2026, 3, 2, 9, 0, 0, TimeSpan.Zero);
+        foreach (var (id, minutes) in new[] { ("b-early", 0), ("b-ahead", 60), ("b-behind", 40), ("b-late", 50) })
+        {
+            Assert.True(await store.TryCreateAsync(new NewBatch(id, "st-1", "r", "{}", "h", "{}", "{}", "InProgress", "Created", "{}", nine.AddMinutes(minutes), "k"), CancellationToken.None));
+        }
+
+        var moved = await store.TrySetStatusAsync("b-early", 1, "Aborted", "spilled", "Aborted", "{}", nine.AddMinutes(90), new EventAudit("k", "st-1"), CancellationToken.None);
+        Assert.True(moved.Written);
+
+        async Task<string[]> Changed(int afterMinutes, long afterSeq = 0, int limit = 10) =>
+            [.. (await store.ListChangedAsync(afterSeq, nine.AddMinutes(afterMinutes), null, limit, CancellationToken.None)).Select(r => r.Id)];
+        // Starting from the earliest time after 09:30 (b-behind) would skip b-ahead, which is before it in event order.
+        Assert.Equal(["b-ahead", "b-behind", "b-late", "b-early"], await Changed(30));
+        Assert.Equal(["b-ahead", "b-late", "b-early"], await Changed(45));
+        Assert.Equal(["b-early"], await Changed(60));
+        Assert.Empty(await Changed(90));
+        Assert.Equal(["b-ahead"], await Changed(30, limit: 1));
+        var behindSeq = (await store.FindAsync("b-behind", CancellationToken.None))!.LastEventSeq;
+        Assert.Equal(["b-late", "b-early"], await Changed(30, behindSeq));
+    }
+
     private static async Task<string> FirstPlanAsync(IDatabase database, string id)
     {
         await using var connection = await database.OpenAsync(CancellationToken.None);
