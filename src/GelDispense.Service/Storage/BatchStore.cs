@@ -72,22 +72,21 @@ public sealed class BatchStore(IDatabase database)
     }
 
     /// <summary>
-    /// What an addition reads before anything else, on one connection: the batch's status, version and plan revision,
-    /// and its additions so far. The two reads need not agree: a write made from them checks the version.
+    /// What an addition reads before anything else, in one round trip: the batch's status, version and plan revision,
+    /// its additions so far and their corrections. The reads need not agree: a write made from them checks the version.
     /// </summary>
     public async Task<BatchProgress?> ProgressAsync(string id, CancellationToken cancellationToken)
     {
         await using var connection = await database.OpenAsync(cancellationToken);
-        var head = await connection.QuerySingleOrDefaultAsync<BatchHead>(
-            "SELECT id, status, station_id, version, plan_revision FROM batches WHERE id = @id", new { id });
-        if (head is null)
-        {
-            return null;
-        }
-
-        var additions = await connection.QueryAsync<AdditionRow>($"{SelectAddition} WHERE batch_id = @id ORDER BY ordinal", new { id = head.Id });
-        var corrections = await connection.QueryAsync<CorrectionRow>($"{SelectCorrection} WHERE c.batch_id = @id ORDER BY e.seq", new { id = head.Id });
-        return new BatchProgress(head, [.. additions], [.. corrections]);
+        await using var reads = await connection.QueryMultipleAsync($"""
+            SELECT id, status, station_id, version, plan_revision FROM batches WHERE id = @id;
+            {SelectAddition} WHERE batch_id = @id ORDER BY ordinal;
+            {SelectCorrection} WHERE c.batch_id = @id ORDER BY e.seq
+            """, new { id });
+        var head = await reads.ReadSingleOrDefaultAsync<BatchHead>();
+        var additions = await reads.ReadAsync<AdditionRow>();
+        var corrections = await reads.ReadAsync<CorrectionRow>();
+        return head is null ? null : new BatchProgress(head, [.. additions], [.. corrections]);
     }
 
     /// <summary>What never changes about a batch: its recipe revision, its setup and its first plan (revision 0).</summary>
