@@ -52,7 +52,7 @@ public sealed class BatchStore(IDatabase database)
                 INSERT INTO batches (id, station_id, status, recipe_revision_id, setup, plan, abort_reason, created_at, updated_at, version, last_event_seq)
                 VALUES (@Id, @StationId, @Status, @revisionId, @Setup, @Plan, '', @at, @at, 1, 0)
                 """, new { batch.Id, batch.StationId, batch.Status, revisionId, batch.Setup, batch.Plan, at = TimeText.Format(batch.At) }, transaction);
-            await EventLog.AppendAndCommitAsync(database, connection, transaction, seq => new EventRow
+            await EventLog.AppendAndCommitAsync(database, connection, transaction, "", seq => new EventRow
             {
                 Seq = seq, BatchId = batch.Id, Type = batch.EventType, Body = batch.EventBody, OccurredAt = TimeText.Format(batch.At),
                 ActorKeyId = batch.ActorKeyId, StationId = batch.StationId,
@@ -266,17 +266,16 @@ public sealed class BatchStore(IDatabase database)
         await using var transaction = await connection.BeginTransactionAsync(cancellationToken);
         try
         {
-            // Taking the batch row first serialises writers of one batch; the loser sees 0 rows and re-reads.
-            var claimed = await connection.ExecuteAsync(
-                "UPDATE batches SET version = version + 1, updated_at = @at WHERE id = @batchId AND version = @expectedVersion",
-                new { at = TimeText.Format(at), batchId, expectedVersion }, transaction);
-            if (claimed == 0)
+            // Taking the batch row first serialises writers of one batch; the loser sees no row and re-reads. Once the row
+            // is ours no other event of this batch can be appended, so its latest hash comes in the same round trip.
+            var (claimed, prevHash) = await ClaimAsync(connection, transaction, batchId, expectedVersion, at);
+            if (!claimed)
             {
                 return WriteOutcome.Conflict;
             }
 
             await write(connection, transaction);
-            var seq = await EventLog.AppendAndCommitAsync(database, connection, transaction, next => new EventRow
+            var seq = await EventLog.AppendAndCommitAsync(database, connection, transaction, prevHash, next => new EventRow
             {
                 Seq = next, BatchId = batchId, Type = eventType, Body = eventBody, OccurredAt = TimeText.Format(at),
                 ActorKeyId = audit.ActorKeyId, StationId = audit.StationId, AdditionId = addition?.AdditionId ?? "",
@@ -288,6 +287,17 @@ public sealed class BatchStore(IDatabase database)
         {
             return WriteOutcome.Conflict;
         }
+    }
+
+    private static async Task<(bool Claimed, string PrevHash)> ClaimAsync(
+        DbConnection connection, DbTransaction transaction, string batchId, long expectedVersion, DateTimeOffset at)
+    {
+        await using var reads = await connection.QueryMultipleAsync("""
+            UPDATE batches SET version = version + 1, updated_at = @at WHERE id = @batchId AND version = @expectedVersion RETURNING version;
+            SELECT hash FROM batch_events WHERE batch_id = @batchId ORDER BY seq DESC LIMIT 1
+            """, new { at = TimeText.Format(at), batchId, expectedVersion }, transaction);
+        var claimed = (await reads.ReadAsync<long>()).Any();
+        return (claimed, await reads.ReadSingleOrDefaultAsync<string?>() ?? "");
     }
 
     private static async Task PutReplanInForceAsync(DbConnection connection, DbTransaction transaction, PlanRevisionRow? replan)

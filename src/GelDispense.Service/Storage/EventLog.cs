@@ -17,17 +17,15 @@ public static class EventLog
 {
     /// <summary>
     /// Appends the event <paramref name="entryAt"/> makes for its sequence number (its hashes are ignored), chained to
-    /// the batch's latest event, points the batch at it and commits the transaction; returns the sequence number. The
-    /// latest hash is read before the counter is bumped: writers of one batch are serialised by the batch row they
-    /// claim (or create) first, so it cannot change under this one.
+    /// <paramref name="prevHash"/>, the hash of the batch's latest event ("" for a new batch), points the batch at it
+    /// and commits the transaction; returns the sequence number. The caller reads the latest hash after claiming (or
+    /// creating) the batch row, which serialises the writers of one batch, so it cannot change under this one.
     /// </summary>
     public static async Task<long> AppendAndCommitAsync(
-        IDatabase database, DbConnection connection, DbTransaction transaction, Func<long, EventRow> entryAt, AdditionRow? addition,
+        IDatabase database, DbConnection connection, DbTransaction transaction, string prevHash, Func<long, EventRow> entryAt, AdditionRow? addition,
         CorrectionRow? correction, CancellationToken cancellationToken)
     {
         var draft = entryAt(0);
-        var prevHash = await connection.ExecuteScalarAsync<string?>(
-            "SELECT hash FROM batch_events WHERE batch_id = @BatchId ORDER BY seq DESC LIMIT 1", new { draft.BatchId }, transaction) ?? "";
         if (database.Engine == PostgresDatabase.EngineName)
         {
             // The hash as AuditChain.Link(prevHash, AuditChain.Canonical(entry)) computes it: the seq field (name, length,
