@@ -9,7 +9,7 @@ namespace GelDispense.Service.Tests.Extensions;
 [Collection(ApiCollection.Name)]
 public sealed class SwaggerExtensionsTests(ApiHosts hosts)
 {
-    /// <summary>Every google.api.http rule in the contract, as OpenAPI writes the path (snake_case parameters in camelCase).</summary>
+    /// <summary>Every google.api.http rule in the contract, as OpenAPI writes the path (snake_case path parameters in lowerCamelCase).</summary>
     private static IEnumerable<(string Method, string Path)> ContractRoutes() =>
         new[]
         {
@@ -20,7 +20,7 @@ public sealed class SwaggerExtensionsTests(ApiHosts hosts)
             .Select(m => m.GetOptions()?.GetExtension(AnnotationsExtensions.Http))
             .OfType<HttpRule>()
             .Select(r => r.PatternCase == HttpRule.PatternOneofCase.Get ? ("get", r.Get) : ("post", r.Post))
-            .Select(r => (r.Item1, r.Item2.Replace("{batch_id}", "{batchId}", StringComparison.Ordinal).Replace("{reagent_id}", "{reagentId}", StringComparison.Ordinal)));
+            .Select(r => (r.Item1, System.Text.RegularExpressions.Regex.Replace(r.Item2, "_([a-z])", m => m.Groups[1].Value.ToUpperInvariant())));
 
     [Theory, SqliteEngine]
     public async Task The_OpenAPI_document_lists_every_REST_route_of_the_contract_with_its_comments(string engine)
