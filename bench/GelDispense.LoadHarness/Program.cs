@@ -26,7 +26,7 @@ public static class Program
         Console.WriteLine("WARNING: Debug build; run with -c Release for figures worth quoting.");
 #endif
         Console.WriteLine($"GelDispense load harness: .NET {Environment.Version}, {Environment.ProcessorCount} logical cores, " +
-            $"{options.Clients} clients, {options.Duration.TotalSeconds:0} s per scenario in {options.Rounds} interleaved rounds after " +
+            $"{(options.Ingest ? $"{options.Stations} stations" : $"{options.Clients} clients")}, {options.Duration.TotalSeconds:0} s per scenario in {options.Rounds} interleaved rounds after " +
             $"{options.Warmup.TotalSeconds:0} s warm-up, at most {options.MaxRequests} requests per scenario; service in process on 127.0.0.1 " +
             $"with {(options.Ingest ? "PostgreSQL" : "SQLite in a temp dir")}; load average before: {LoadAverage()}.");
         var workload = DemoWorkload.Load();

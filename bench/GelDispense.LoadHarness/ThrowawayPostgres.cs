@@ -28,8 +28,8 @@ public sealed class ThrowawayPostgres : IAsyncDisposable
             ?? throw new InvalidOperationException("No PostgreSQL binaries under /usr/lib/postgresql; install postgresql or pass --postgres.");
         var port = InProcessService.FreePort();
         var cluster = new ThrowawayPostgres(bin, Path.Combine(Path.GetTempPath(), $"geldispense-load-pg-{Guid.NewGuid():N}"), port);
-        await cluster.RunAsync("initdb", $"-D {cluster._dataDirectory} -U postgres -A trust -E UTF8 --locale=C.UTF-8 --no-sync");
-        await cluster.RunAsync("pg_ctl", $"-D {cluster._dataDirectory} -l {cluster._dataDirectory}/server.log -w -t 30 -o \"-p {port} " +
+        await cluster.RunAsync("initdb", $"-D {cluster._dataDirectory} -U postgres -A trust -E UTF8 --locale=C.UTF-8 --no-sync", quiet: true);
+        await cluster.RunAsync("pg_ctl", $"-D {cluster._dataDirectory} -l {cluster._dataDirectory}/server.log -s -w -t 30 -o \"-p {port} " +
             $"-k {cluster._dataDirectory} -c listen_addresses=127.0.0.1 -c max_connections={maxConnections} " +
             "-c fsync=off -c synchronous_commit=off -c full_page_writes=off\" start");
         return cluster;
@@ -37,21 +37,32 @@ public sealed class ThrowawayPostgres : IAsyncDisposable
 
     public async ValueTask DisposeAsync()
     {
-        await RunAsync("pg_ctl", $"-D {_dataDirectory} -m fast -w stop");
+        await RunAsync("pg_ctl", $"-D {_dataDirectory} -m fast -s -w stop");
         Directory.Delete(_dataDirectory, recursive: true);
     }
 
-    private async Task RunAsync(string tool, string arguments)
+    /// <summary>
+    /// Runs a PostgreSQL tool. Only a <paramref name="quiet"/> one (initdb, which leaves no process behind) has its
+    /// output captured, and shown only when it fails: pg_ctl's postmaster would inherit the pipes and hold up our
+    /// wait, so pg_ctl runs silent (-s) and the server logs to server.log.
+    /// </summary>
+    private async Task RunAsync(string tool, string arguments, bool quiet = false)
     {
         var path = Path.Combine(_bin, tool);
         var asRoot = Environment.UserName == "root";
-        // Output is not redirected: the postmaster inherits the pipes and would hold up our wait; it logs to server.log.
-        using var process = Process.Start(new ProcessStartInfo(asRoot ? "runuser" : path, asRoot ? $"-u postgres -- {path} {arguments}" : arguments))
-            ?? throw new InvalidOperationException($"{tool} did not start.");
+        var start = new ProcessStartInfo(asRoot ? "runuser" : path, asRoot ? $"-u postgres -- {path} {arguments}" : arguments)
+        {
+            RedirectStandardOutput = quiet,
+            RedirectStandardError = quiet,
+        };
+        using var process = Process.Start(start) ?? throw new InvalidOperationException($"{tool} did not start.");
+        var output = quiet ? Task.WhenAll(process.StandardOutput.ReadToEndAsync(), process.StandardError.ReadToEndAsync()) : Task.FromResult<string[]>([]);
         await process.WaitForExitAsync();
         if (process.ExitCode != 0)
         {
-            throw new InvalidOperationException($"{tool} {arguments} exited with {process.ExitCode}.");
+            throw new InvalidOperationException($"{tool} {arguments} exited with {process.ExitCode}. {string.Join(' ', await output)}");
         }
+
+        await output;
     }
 }
