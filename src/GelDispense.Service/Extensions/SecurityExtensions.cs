@@ -13,7 +13,8 @@ namespace GelDispense.Service.Extensions;
 /// </summary>
 public static class SecurityExtensions
 {
-    private const string BearerScheme = "Bearer";
+    // Not "Bearer": that is the JwtBearer handler's own scheme name, and the two must not collide.
+    private const string KeyOrTokenScheme = "KeyOrToken";
 
     public static IServiceCollection AddGelDispenseSecurity(this IServiceCollection services, IConfiguration configuration)
     {
@@ -25,8 +26,8 @@ public static class SecurityExtensions
         services.AddHostedService<BootstrapKeyHostedService>();
 
         var jwt = !string.IsNullOrWhiteSpace(settings.Jwt.Authority);
-        var authentication = services.AddAuthentication(BearerScheme)
-            .AddPolicyScheme(BearerScheme, "API key or JWT", options => options.ForwardDefaultSelector = context =>
+        var authentication = services.AddAuthentication(KeyOrTokenScheme)
+            .AddPolicyScheme(KeyOrTokenScheme, "API key or JWT", options => options.ForwardDefaultSelector = context =>
                 jwt && !LooksLikeApiKey(context.Request.Headers.Authorization.ToString())
                     ? JwtBearerDefaults.AuthenticationScheme
                     : ApiKeyAuthenticationHandler.SchemeName)
@@ -37,9 +38,11 @@ public static class SecurityExtensions
             {
                 options.Authority = settings.Jwt.Authority;
                 options.Audience = settings.Jwt.Audience;
+                options.RequireHttpsMetadata = settings.Jwt.RequireHttpsMetadata;
                 options.MapInboundClaims = false;
                 options.TokenValidationParameters.RoleClaimType = GelDispenseClaims.Role;
                 options.TokenValidationParameters.NameClaimType = GelDispenseClaims.Subject;
+                options.Events = new JwtBearerEvents { OnAuthenticationFailed = LogRefusedToken };
             });
         }
 
@@ -63,6 +66,17 @@ public static class SecurityExtensions
         app.UseRateLimiter();
         app.UseAuthorization();
         return app;
+    }
+
+    // As for refused keys: the reason and the peer, never the presented token (IdentityModel hides it in messages too).
+    private static Task LogRefusedToken(AuthenticationFailedContext context)
+    {
+        var request = context.Request;
+        context.HttpContext.RequestServices.GetRequiredService<ILoggerFactory>().CreateLogger(typeof(SecurityExtensions)).LogWarning(
+            "JWT refused for {Method} {Path} from {Peer}: {Reason}",
+            request.Method, request.Path.Value, context.HttpContext.Connection.RemoteIpAddress?.ToString() ?? "in-process",
+            context.Exception.Message.Split('\n', 2)[0].Trim());
+        return Task.CompletedTask;
     }
 
     private static bool LooksLikeApiKey(string header) =>

@@ -8,4 +8,7 @@ public sealed class JwtSettings
 
     /// <summary>The audience tokens must name.</summary>
     public string? Audience { get; set; }
+
+    /// <summary>Fetch the issuer's metadata over HTTPS only (default); false only for an issuer on loopback in a test bed.</summary>
+    public bool RequireHttpsMetadata { get; set; } = true;
 }
