@@ -30,10 +30,12 @@ public sealed class BatchApi(
     }
 
     [Authorize(Policy = Policies.Read)]
-    public override Task<Batch> GetBatch(GetBatchRequest request, ServerCallContext context)
+    public override async Task<Batch> GetBatch(GetBatchRequest request, ServerCallContext context)
     {
         log.Batch(request.Id);
-        return ledger.GetAsync(request.Id, context.CancellationToken);
+        var batch = await ledger.GetAsync(request.Id, context.CancellationToken);
+        Caller.From(context.GetHttpContext().User).RequireStation(batch.StationId, "id");
+        return batch;
     }
 
     [Authorize(Policy = Policies.RunBatches)]
@@ -51,17 +53,18 @@ public sealed class BatchApi(
     }
 
     [Authorize(Policy = Policies.Read)]
-    public override Task<AsMade> GetAsMade(GetAsMadeRequest request, ServerCallContext context)
+    public override async Task<AsMade> GetAsMade(GetAsMadeRequest request, ServerCallContext context)
     {
         log.Batch(request.BatchId);
-        return additions.AsMadeAsync(request.BatchId, context.CancellationToken);
+        await RequireOwnBatchAsync(request.BatchId, "batchId", context);
+        return await additions.AsMadeAsync(request.BatchId, context.CancellationToken);
     }
 
     [Authorize(Policy = Policies.RunBatches)]
     public override async Task<Batch> CompleteBatch(CompleteBatchRequest request, ServerCallContext context)
     {
         log.Batch(request.Id);
-        await RequireOwnBatchAsync(request.Id, context);
+        await RequireOwnBatchAsync(request.Id, "id", context);
         return await ledger.CloseAsync(request.Id, BatchStatus.Completed, "", Caller.From(context.GetHttpContext().User), context.CancellationToken);
     }
 
@@ -69,13 +72,16 @@ public sealed class BatchApi(
     public override async Task<Batch> AbortBatch(AbortBatchRequest request, ServerCallContext context)
     {
         log.Batch(request.Id);
-        await RequireOwnBatchAsync(request.Id, context);
+        await RequireOwnBatchAsync(request.Id, "id", context);
         return await ledger.CloseAsync(request.Id, BatchStatus.Aborted, request.Reason, Caller.From(context.GetHttpContext().User), context.CancellationToken);
     }
 
     [Authorize(Policy = Policies.Read)]
-    public override Task<ListBatchesResponse> ListBatches(ListBatchesRequest request, ServerCallContext context) =>
-        ledger.ListAsync(request, context.CancellationToken);
+    public override Task<ListBatchesResponse> ListBatches(ListBatchesRequest request, ServerCallContext context)
+    {
+        request.StationId = StationInScope(request.StationId, context);
+        return ledger.ListAsync(request, context.CancellationToken);
+    }
 
     [Authorize(Policy = Policies.Read)]
     public override async Task<HttpBody> ExportAdditionsCsv(ExportAdditionsCsvRequest request, ServerCallContext context)
@@ -84,11 +90,13 @@ public sealed class BatchApi(
         if (request.BatchId.Length > 0)
         {
             log.Batch(request.BatchId);
-            AdditionsCsv.AppendRows(csv, await ledger.GetAsync(request.BatchId, context.CancellationToken));
+            var batch = await ledger.GetAsync(request.BatchId, context.CancellationToken);
+            Caller.From(context.GetHttpContext().User).RequireStation(batch.StationId, "batchId");
+            AdditionsCsv.AppendRows(csv, batch);
         }
         else
         {
-            var page = new ListBatchesRequest { UpdatedAfter = request.UpdatedAfter, StationId = request.StationId, PageSize = BatchLedger.MaxPageSize };
+            var page = new ListBatchesRequest { UpdatedAfter = request.UpdatedAfter, StationId = StationInScope(request.StationId, context), PageSize = BatchLedger.MaxPageSize };
             ListBatchesResponse response;
             do
             {
@@ -110,7 +118,9 @@ public sealed class BatchApi(
     public override async Task WatchBatch(WatchBatchRequest request, IServerStreamWriter<BatchEvent> responseStream, ServerCallContext context)
     {
         log.Batch(request.BatchId);
-        var batchId = (await ledger.FindAsync(request.BatchId, "batchId", context.CancellationToken)).Id;
+        var found = await ledger.FindAsync(request.BatchId, "batchId", context.CancellationToken);
+        Caller.From(context.GetHttpContext().User).RequireStation(found.StationId, "batchId");
+        var batchId = found.Id;
         var after = request.AfterSequence;
         while (!context.CancellationToken.IsCancellationRequested)
         {
@@ -135,13 +145,26 @@ public sealed class BatchApi(
         return audit.VerifyAsync(request.BatchId, context.CancellationToken);
     }
 
-    /// <summary>A station caller may close only its own station's batches; others skip the extra read.</summary>
-    private async Task RequireOwnBatchAsync(string batchId, ServerCallContext context)
+    /// <summary>A station caller may act on and read only its own station's batches; others skip the extra read.</summary>
+    private async Task RequireOwnBatchAsync(string batchId, string field, ServerCallContext context)
     {
         var caller = Caller.From(context.GetHttpContext().User);
         if (caller.OwnStationId is not null)
         {
-            caller.RequireStation((await ledger.FindAsync(batchId, "id", context.CancellationToken)).StationId, "id");
+            caller.RequireStation((await ledger.FindAsync(batchId, field, context.CancellationToken)).StationId, field);
         }
+    }
+
+    /// <summary>The station filter of a list: a station caller sees its own station only, whether or not it asked.</summary>
+    private static string StationInScope(string requested, ServerCallContext context)
+    {
+        var caller = Caller.From(context.GetHttpContext().User);
+        if (caller.OwnStationId is not { } own)
+        {
+            return requested;
+        }
+
+        caller.RequireStation(requested.Length == 0 ? own : requested.Trim(), "stationId");
+        return own;
     }
 }
