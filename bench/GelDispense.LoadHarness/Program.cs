@@ -1,4 +1,5 @@
 using GelDispense.Contracts.V1;
+using GelDispense.Service.Tests.Infrastructure;
 
 namespace GelDispense.LoadHarness;
 
@@ -71,8 +72,8 @@ public static class Program
     /// <summary>The service on PostgreSQL (a throwaway cluster unless --postgres names one), stations against raw inserts.</summary>
     private static async Task<int> IngestAsync(HarnessOptions options, DemoWorkload workload)
     {
-        // The service's pool (100 by default) and one connection per raw loop, with room to spare.
-        await using var cluster = options.Postgres is null ? await ThrowawayPostgres.StartAsync(maxConnections: 200) : null;
+        // The cluster allows 200 connections: the service's pool (100 by default) and one per raw loop, with room to spare.
+        await using var cluster = options.Postgres is null ? await LocalPostgres.StartAsync() : null;
         var connectionString = options.Postgres ?? cluster!.ConnectionString;
         await using var service = await InProcessService.StartAsync(connectionString);
         using var stop = StopOnCtrlC();

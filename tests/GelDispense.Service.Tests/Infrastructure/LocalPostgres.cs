@@ -38,34 +38,42 @@ public sealed class LocalPostgres : IAsyncDisposable
         var port = FreePort();
         var cluster = new LocalPostgres(bin, dataDir, port);
         await cluster.RunAsync("initdb", $"-D {dataDir} -U postgres -A trust -E UTF8 --locale=C.UTF-8 --no-sync");
-        await cluster.RunAsync("pg_ctl", $"-D {dataDir} -l {dataDir}/server.log -w -t 30 -o \"-p {port} -k {dataDir} " +
+        await cluster.RunAsync("pg_ctl", $"-D {dataDir} -l {dataDir}/server.log -s -w -t 30 -o \"-p {port} -k {dataDir} " +
             "-c listen_addresses=127.0.0.1 -c fsync=off -c synchronous_commit=off -c full_page_writes=off -c max_connections=200\" start");
         return cluster;
     }
 
     public async ValueTask DisposeAsync()
     {
-        await RunAsync("pg_ctl", $"-D {_dataDir} -m immediate -w stop");
+        await RunAsync("pg_ctl", $"-D {_dataDir} -m immediate -s -w stop");
         Directory.Delete(_dataDir, recursive: true);
     }
 
+    /// <summary>
+    /// Runs a PostgreSQL tool. Only initdb, which leaves no process behind, has its output captured (shown when it
+    /// fails): pg_ctl's postmaster would inherit the pipes and hold up our wait, so pg_ctl runs silent (-s) and the
+    /// server logs to server.log.
+    /// </summary>
     private async Task RunAsync(string tool, string arguments)
     {
+        var quiet = tool == "initdb";
         var asRoot = Environment.UserName == "root";
         var start = new ProcessStartInfo(asRoot ? "runuser" : Path.Combine(_bin, tool))
         {
             Arguments = asRoot ? $"-u postgres -- {Path.Combine(_bin, tool)} {arguments}" : arguments,
             UseShellExecute = false,
-            // The postmaster inherits our pipes; redirecting them would block its exit, so output goes to server.log.
-            RedirectStandardOutput = false,
-            RedirectStandardError = false,
+            RedirectStandardOutput = quiet,
+            RedirectStandardError = quiet,
         };
         using var process = Process.Start(start) ?? throw new InvalidOperationException($"{tool} did not start.");
+        var output = quiet ? Task.WhenAll(process.StandardOutput.ReadToEndAsync(), process.StandardError.ReadToEndAsync()) : Task.FromResult<string[]>([]);
         await process.WaitForExitAsync();
         if (process.ExitCode != 0)
         {
-            throw new InvalidOperationException($"{tool} {arguments} exited with {process.ExitCode}.");
+            throw new InvalidOperationException($"{tool} {arguments} exited with {process.ExitCode}. {string.Join(' ', await output)}");
         }
+
+        await output;
     }
 
     private static int FreePort()
