@@ -25,7 +25,10 @@ public static class LoggingExtensions
             {
                 logger.WriteTo.Console(outputTemplate: TextTemplate, formatProvider: System.Globalization.CultureInfo.InvariantCulture);
             }
-        });
+        },
+        // Each host logs through its own logger, never the static Log.Logger: otherwise a second host in the same
+        // process (the agent's demo, parallel tests) would take over the first one's log lines.
+        preserveStaticLogger: true);
         return builder;
     }
 
@@ -36,6 +39,8 @@ public static class LoggingExtensions
     public static IApplicationBuilder UseGelDispenseRequestLogging(this IApplicationBuilder app) =>
         app.UseSerilogRequestLogging(options =>
         {
+            // This host's logger: the middleware would otherwise write to the static Log.Logger, which it never sets.
+            options.Logger = app.ApplicationServices.GetRequiredService<Serilog.ILogger>();
             options.MessageTemplate = "{Protocol} {RequestMethod} {RequestPath} -> {StatusCode} in {Elapsed:0.0} ms";
             options.EnrichDiagnosticContext = (diagnostics, http) =>
                 diagnostics.Set("Protocol", Errors.RestProblemMiddleware.IsGrpc(http.Request) ? "gRPC" : "REST");
