@@ -1,9 +1,4 @@
-using GelDispense.Chemistry.AsMade;
-using GelDispense.Chemistry.Composition;
-using GelDispense.Chemistry.Planning;
-using GelDispense.Chemistry.Reagents;
-using GelDispense.Service.Api;
-using GelDispense.Service.Mapping;
+using GelDispense.Service.Tests.Infrastructure;
 using Contract = GelDispense.Contracts.V1;
 
 namespace GelDispense.ScaleOut.Tests.Support;
@@ -20,16 +15,7 @@ internal static class AsMadeCheck
 
     public static void MatchesChemistry(Contract.Batch firstPlan, IReadOnlyList<PlannedAddition> posted, Contract.Composition served)
     {
-        var prepared = Formulation.Prepare(RecipeMapping.ToChemistry(firstPlan.Recipe), BuiltInReagents.CreateCatalog());
-        var massesG = new double[prepared.Lines.Count];
-        foreach (var step in firstPlan.Steps)
-        {
-            massesG[step.ComponentIndex] += step.TargetMassG;
-        }
-
-        var request = Planner.Request(firstPlan.Balance, firstPlan.Pipette, firstPlan.Air);
-        var plan = PlanBuilder.Build(prepared.WithMasses(massesG), request);
-        var expected = AsMadeCalculator.Compute(plan, [.. posted.Select(a => new RecordedReading(a.StepIndex, a.ReadingG))], request.Options).Composition;
+        var expected = LibraryAsMade.Of(firstPlan, posted.Select(a => (a.StepIndex, a.ReadingG)));
 
         Close(expected.PrecursorMol, served.PrecursorMol, "precursorMol");
         Close(expected.WaterMol, served.WaterMol, "waterMol");

@@ -85,7 +85,7 @@ public sealed class AdditionCorrectorTests(ApiHosts hosts)
         Assert.Empty(response["remainingSteps"]!.AsArray());
 
         var asMade = await lims.GetAsMadeAsync(new GetAsMadeRequest { BatchId = batch.Id });
-        var expected = Corrections.LibraryAsMade(batch, batch.Steps.Select(s => (s.Index, s.Index == teos.Index ? correctedReadingG : s.TargetReadingG)));
+        var expected = LibraryAsMade.Of(batch, batch.Steps.Select(s => (s.Index, s.Index == teos.Index ? correctedReadingG : s.TargetReadingG)));
         Close(expected.HydrolysisRatio, asMade.Composition.HydrolysisRatio, "hydrolysisRatio");
         Close(expected.PrecursorMol, asMade.Composition.PrecursorMol, "precursorMol");
         Close(expected.WaterMol, asMade.Composition.WaterMol, "waterMol");
