@@ -14,6 +14,9 @@ public static class EndpointExtensions
         app.UseSwagger();
         app.UseSwaggerUI(options => options.DocumentTitle = "GelDispense API");
         app.UseGelDispenseSecurity();
+        // After authorization: a remembered answer goes only to a caller admitted to the route.
+        var answers = app.Services.GetRequiredService<RestAnswerMemo>();
+        app.UseWhen(context => !RestProblemMiddleware.IsGrpc(context.Request), rest => rest.Use(answers.InvokeAsync));
         return app;
     }
 

@@ -30,6 +30,7 @@ public static class ServiceCollectionExtensions
         services.AddGelDispenseSecurity(configuration);
         services.AddSingleton<ReagentDirectory>();
         services.AddSingleton<PlanMemo>();
+        services.AddSingleton<RestAnswerMemo>();
         services.AddSingleton<Planner>();
         services.AddSingleton<BatchEventSignal>();
         services.AddSingleton<BatchLedger>();
