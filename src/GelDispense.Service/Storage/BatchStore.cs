@@ -166,16 +166,16 @@ public sealed class BatchStore(IDatabase database)
     public Task<WriteOutcome> TryAppendAdditionAsync(
         AdditionRow addition, long expectedVersion, PlanRevisionRow? replan, string eventBody, DateTimeOffset at, EventAudit audit,
         CancellationToken cancellationToken) =>
-        WriteVersionedAsync(addition.BatchId, expectedVersion, at, "ADDITION_RECORDED", eventBody, audit, addition, cancellationToken, async (connection, transaction) =>
+        WriteVersionedAsync(new VersionedWrite(addition.BatchId, expectedVersion, at, "ADDITION_RECORDED", eventBody, audit)
         {
-            await connection.ExecuteAsync("""
+            Insert = """
                 INSERT INTO additions (batch_id, addition_id, ordinal, step_index, reading_g, stable, source, lot_id, true_mass_g,
                                        within_window, recorded_at, content_hash, response, plan_revision, target_mass_g, acceptance_g)
-                VALUES (@BatchId, @AdditionId, @Ordinal, @StepIndex, @ReadingG, @Stable, @Source, @LotId, @TrueMassG,
-                        @WithinWindow, @RecordedAt, @ContentHash, @Response, @PlanRevision, @TargetMassG, @AcceptanceG)
-                """, addition, transaction);
-            await PutReplanInForceAsync(connection, transaction, replan);
-        });
+                SELECT @BatchId, @AdditionId, @Ordinal, @StepIndex, @ReadingG, @Stable, @Source, @LotId, @TrueMassG,
+                       @WithinWindow, @RecordedAt, @ContentHash, @Response, @PlanRevision, @TargetMassG, @AcceptanceG
+                """,
+            Row = addition, Addition = addition, Replan = replan,
+        }, cancellationToken);
 
     /// <summary>
     /// Appends a correction (and its event) if the batch is still at <paramref name="expectedVersion"/>; the addition
@@ -183,26 +183,23 @@ public sealed class BatchStore(IDatabase database)
     /// </summary>
     public Task<WriteOutcome> TryAppendCorrectionAsync(
         CorrectionRow correction, long expectedVersion, PlanRevisionRow? replan, string eventBody, DateTimeOffset at, CancellationToken cancellationToken) =>
-        WriteVersionedAsync(correction.BatchId, expectedVersion, at, "ADDITION_CORRECTED", eventBody,
-            new EventAudit(correction.ActorKeyId, correction.StationId), null, cancellationToken, async (connection, transaction) =>
-            {
-                await connection.ExecuteAsync("""
-                    INSERT INTO addition_corrections (batch_id, correction_id, addition_id, corrects_seq, previous_reading_g, reading_g, true_mass_g,
-                                                      within_window, reason, actor_key_id, station_id, recorded_at, content_hash, response)
-                    VALUES (@BatchId, @CorrectionId, @AdditionId, @CorrectsSeq, @PreviousReadingG, @ReadingG, @TrueMassG,
-                            @WithinWindow, @Reason, @ActorKeyId, @StationId, @RecordedAt, @ContentHash, @Response)
-                    """, correction, transaction);
-                await PutReplanInForceAsync(connection, transaction, replan);
-            }, correction);
+        WriteVersionedAsync(new VersionedWrite(
+            correction.BatchId, expectedVersion, at, "ADDITION_CORRECTED", eventBody, new EventAudit(correction.ActorKeyId, correction.StationId))
+        {
+            Insert = """
+                INSERT INTO addition_corrections (batch_id, correction_id, addition_id, corrects_seq, previous_reading_g, reading_g, true_mass_g,
+                                                  within_window, reason, actor_key_id, station_id, recorded_at, content_hash, response)
+                SELECT @BatchId, @CorrectionId, @AdditionId, @CorrectsSeq, @PreviousReadingG, @ReadingG, @TrueMassG,
+                       @WithinWindow, @Reason, @ActorKeyId, @StationId, @RecordedAt, @ContentHash, @Response
+                """,
+            Row = correction, Correction = correction, Replan = replan,
+        }, cancellationToken);
 
     /// <summary>Moves the batch to another status if it is still at <paramref name="expectedVersion"/>.</summary>
     public Task<WriteOutcome> TrySetStatusAsync(
         string batchId, long expectedVersion, string status, string abortReason, string eventType, string eventBody, DateTimeOffset at,
         EventAudit audit, CancellationToken cancellationToken) =>
-        WriteVersionedAsync(batchId, expectedVersion, at, eventType, eventBody, audit, null, cancellationToken, (connection, transaction) =>
-            connection.ExecuteAsync(
-                "UPDATE batches SET status = @status, abort_reason = @abortReason WHERE id = @batchId",
-                new { status, abortReason, batchId }, transaction));
+        WriteVersionedAsync(new VersionedWrite(batchId, expectedVersion, at, eventType, eventBody, audit) { Status = (status, abortReason) }, cancellationToken);
 
     /// <summary>
     /// Batches whose latest event is after <paramref name="afterSeq"/>, in event order (the LIMS keyset). With
@@ -255,39 +252,132 @@ public sealed class BatchStore(IDatabase database)
             corrections.ToDictionary(c => c.CorrectionId, StringComparer.Ordinal));
     }
 
-    private async Task<WriteOutcome> WriteVersionedAsync(
-        string batchId, long expectedVersion, DateTimeOffset at, string eventType, string eventBody, EventAudit audit, AdditionRow? addition,
-        CancellationToken cancellationToken,
-        Func<DbConnection, DbTransaction, Task> write,
-        CorrectionRow? correction = null)
+    private async Task<WriteOutcome> WriteVersionedAsync(VersionedWrite write, CancellationToken cancellationToken)
     {
         using var turn = await database.EnterWriteAsync(cancellationToken);
         await using var connection = await database.OpenAsync(cancellationToken);
         await using var transaction = await connection.BeginTransactionAsync(cancellationToken);
+        var draft = new EventRow
+        {
+            BatchId = write.BatchId, Type = write.EventType, Body = write.EventBody, OccurredAt = TimeText.Format(write.At),
+            ActorKeyId = write.Audit.ActorKeyId, StationId = write.Audit.StationId, AdditionId = write.Addition?.AdditionId ?? "",
+            CorrectionId = write.Correction?.CorrectionId ?? "",
+        };
         try
         {
+            if (database.Engine == PostgresDatabase.EngineName)
+            {
+                var seq = await connection.ExecuteScalarAsync<long?>(PostgresWrite(write), PostgresWriteParameters(write, draft), transaction);
+                return seq is { } written ? new WriteOutcome(true, written) : WriteOutcome.Conflict;
+            }
+
             // Taking the batch row first serialises writers of one batch; the loser sees no row and re-reads. Once the row
             // is ours no other event of this batch can be appended, so its latest hash comes in the same round trip.
-            var (claimed, prevHash) = await ClaimAsync(connection, transaction, batchId, expectedVersion, at);
+            var (claimed, prevHash) = await ClaimAsync(connection, transaction, write.BatchId, write.ExpectedVersion, write.At);
             if (!claimed)
             {
                 return WriteOutcome.Conflict;
             }
 
-            await write(connection, transaction);
-            var seq = await EventLog.AppendAndCommitAsync(database, connection, transaction, prevHash, next => new EventRow
+            if (write.Insert is not null)
             {
-                Seq = next, BatchId = batchId, Type = eventType, Body = eventBody, OccurredAt = TimeText.Format(at),
-                ActorKeyId = audit.ActorKeyId, StationId = audit.StationId, AdditionId = addition?.AdditionId ?? "",
-                CorrectionId = correction?.CorrectionId ?? "",
-            }, addition, correction, cancellationToken);
-            return new WriteOutcome(true, seq);
+                await connection.ExecuteAsync(write.Insert, write.Row, transaction);
+            }
+
+            if (write.Replan is { } replan)
+            {
+                await connection.ExecuteAsync($"{InsertReplan}; UPDATE batches SET plan_revision = @replanRevision WHERE id = @replanBatchId", ReplanParameters(replan), transaction);
+            }
+
+            if (write.Status is { } status)
+            {
+                await connection.ExecuteAsync(
+                    "UPDATE batches SET status = @status, abort_reason = @abortReason WHERE id = @batchId",
+                    new { status = status.Name, abortReason = status.AbortReason, batchId = write.BatchId }, transaction);
+            }
+
+            var seqOnSqlite = await EventLog.AppendAndCommitAsync(
+                database, connection, transaction, prevHash, next => Numbered(draft, next), write.Addition, write.Correction, cancellationToken);
+            return new WriteOutcome(true, seqOnSqlite);
         }
         catch (DbException e) when (database.IsConflict(e))
         {
             return WriteOutcome.Conflict;
         }
     }
+
+    private const string InsertReplan = """
+        INSERT INTO plan_revisions (batch_id, revision, plan, scale_factor, cause_addition_id, created_at)
+        SELECT @replanBatchId, @replanRevision, @replanPlan, @replanScaleFactor, @replanCause, @replanCreatedAt
+        """;
+
+    private static object ReplanParameters(PlanRevisionRow replan) => new
+    {
+        replanBatchId = replan.BatchId, replanRevision = replan.Revision, replanPlan = replan.Plan, replanScaleFactor = replan.ScaleFactor,
+        replanCause = replan.CauseAdditionId, replanCreatedAt = replan.CreatedAt,
+    };
+
+    /// <summary>
+    /// The whole write as one statement and COMMIT, one round trip. <c>claim</c> locks the batch row only if it is still
+    /// at the expected version (in READ COMMITTED a row changed meanwhile is re-checked after the lock, so the loser
+    /// gets no row); every insert and the counter bump read from it, so a writer that lost writes nothing. A claimed row
+    /// had no event appended since this statement's snapshot (every event bumps the version), so the latest hash read
+    /// in that snapshot is the batch's latest. The final UPDATE of the locked row bumps the version and sets the rest.
+    /// </summary>
+    private static string PostgresWrite(VersionedWrite write)
+    {
+        var before = new List<string>
+        {
+            "claim AS MATERIALIZED (SELECT id FROM batches WHERE id = @eventBatchId AND version = @expectedVersion FOR UPDATE)",
+            "prev AS (SELECT COALESCE((SELECT hash FROM batch_events WHERE batch_id = @eventBatchId ORDER BY seq DESC LIMIT 1), '') AS hash FROM claim)",
+        };
+        var sets = "version = version + 1, updated_at = @eventAt, ";
+        if (write.Insert is not null)
+        {
+            before.Add($"written AS ({write.Insert} FROM claim)");
+        }
+
+        if (write.Replan is not null)
+        {
+            before.Add($"replan AS ({InsertReplan} FROM claim)");
+            sets += "plan_revision = @replanRevision, ";
+        }
+
+        if (write.Status is not null)
+        {
+            sets += "status = @status, abort_reason = @abortReason, ";
+        }
+
+        return EventLog.PostgresAppendAndCommit(string.Join(",\n", before), "EXISTS (SELECT 1 FROM claim)", sets);
+    }
+
+    private static DynamicParameters PostgresWriteParameters(VersionedWrite write, EventRow draft)
+    {
+        var parameters = EventLog.PostgresParameters(draft, write.Addition, write.Correction);
+        parameters.Add("expectedVersion", write.ExpectedVersion);
+        if (write.Row is not null)
+        {
+            parameters.AddDynamicParams(write.Row);
+        }
+
+        if (write.Replan is { } replan)
+        {
+            parameters.AddDynamicParams(ReplanParameters(replan));
+        }
+
+        if (write.Status is { } status)
+        {
+            parameters.AddDynamicParams(new { status = status.Name, abortReason = status.AbortReason });
+        }
+
+        return parameters;
+    }
+
+    private static EventRow Numbered(EventRow draft, long seq) => new()
+    {
+        Seq = seq, BatchId = draft.BatchId, Type = draft.Type, Body = draft.Body, OccurredAt = draft.OccurredAt, ActorKeyId = draft.ActorKeyId,
+        StationId = draft.StationId, AdditionId = draft.AdditionId, CorrectionId = draft.CorrectionId,
+    };
 
     private static async Task<(bool Claimed, string PrevHash)> ClaimAsync(
         DbConnection connection, DbTransaction transaction, string batchId, long expectedVersion, DateTimeOffset at)
@@ -300,18 +390,18 @@ public sealed class BatchStore(IDatabase database)
         return (claimed, await reads.ReadSingleOrDefaultAsync<string?>() ?? "");
     }
 
-    private static async Task PutReplanInForceAsync(DbConnection connection, DbTransaction transaction, PlanRevisionRow? replan)
+    /// <summary>
+    /// One version-checked write of a batch: the row it inserts (an addition or a correction, as INSERT … SELECT so
+    /// PostgreSQL can make it conditional on the claim), a re-plan, a status change, and its event.
+    /// </summary>
+    private sealed record VersionedWrite(string BatchId, long ExpectedVersion, DateTimeOffset At, string EventType, string EventBody, EventAudit Audit)
     {
-        if (replan is null)
-        {
-            return;
-        }
-
-        await connection.ExecuteAsync("""
-            INSERT INTO plan_revisions (batch_id, revision, plan, scale_factor, cause_addition_id, created_at)
-            VALUES (@BatchId, @Revision, @Plan, @ScaleFactor, @CauseAdditionId, @CreatedAt)
-            """, replan, transaction);
-        await connection.ExecuteAsync("UPDATE batches SET plan_revision = @Revision WHERE id = @BatchId", replan, transaction);
+        public string? Insert { get; init; }
+        public object? Row { get; init; }
+        public AdditionRow? Addition { get; init; }
+        public CorrectionRow? Correction { get; init; }
+        public PlanRevisionRow? Replan { get; init; }
+        public (string Name, string AbortReason)? Status { get; init; }
     }
 
     private static async Task<long> RecipeRevisionAsync(DbConnection connection, DbTransaction transaction, NewBatch batch)

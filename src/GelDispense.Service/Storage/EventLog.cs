@@ -28,28 +28,10 @@ public static class EventLog
         var draft = entryAt(0);
         if (database.Engine == PostgresDatabase.EngineName)
         {
-            // The hash as AuditChain.Link(prevHash, AuditChain.Canonical(entry)) computes it: the seq field (name, length,
-            // value, newline) is written here because only this statement knows the number. COMMIT rides in the same
-            // round trip; Npgsql sees the transaction end and the caller's dispose has nothing left to roll back.
-            return await connection.ExecuteScalarAsync<long>("""
-                WITH next AS (
-                    UPDATE event_sequence SET last_seq = last_seq + 1,
-                        high_water_at = GREATEST(high_water_at, (SELECT updated_at FROM batches WHERE id = @BatchId))
-                    WHERE id = 1 RETURNING last_seq AS seq, high_water_at),
-                event AS (
-                    INSERT INTO batch_events (seq, batch_id, type, body, occurred_at, actor_key_id, station_id, addition_id, correction_id, prev_hash, hash)
-                    SELECT seq, @BatchId, @Type, @Body, @OccurredAt, @ActorKeyId, @StationId, @AdditionId, @CorrectionId, @prevHash,
-                           encode(sha256(convert_to(@prevHash || 'seq:' || length(seq::text) || ':' || seq::text || chr(10) || @afterSeq, 'UTF8')), 'hex')
-                    FROM next
-                    RETURNING seq)
-                UPDATE batches SET last_event_seq = event.seq, high_water_at = next.high_water_at FROM event, next WHERE batches.id = @BatchId
-                RETURNING event.seq;
-                COMMIT
-                """, new
-            {
-                draft.BatchId, draft.Type, draft.Body, draft.OccurredAt, draft.ActorKeyId, draft.StationId, draft.AdditionId, draft.CorrectionId, prevHash,
-                afterSeq = AuditChain.AfterSeq(draft, addition, correction),
-            }, transaction);
+            var parameters = PostgresParameters(draft, addition, correction);
+            parameters.Add("prevHash", prevHash);
+            return await connection.ExecuteScalarAsync<long>(
+                PostgresAppendAndCommit("prev AS (SELECT @prevHash AS hash)", "TRUE", ""), parameters, transaction);
         }
 
         var entry = entryAt(await connection.ExecuteScalarAsync<long>("""
@@ -66,5 +48,45 @@ public static class EventLog
             transaction);
         await transaction.CommitAsync(cancellationToken);
         return entry.Seq;
+    }
+
+    /// <summary>
+    /// PostgreSQL: one statement that, after the caller's CTEs <paramref name="before"/> (which must define
+    /// <c>prev(hash)</c>, the batch's latest hash, with no row when nothing may be written), bumps the counter when
+    /// <paramref name="mayWrite"/> holds, inserts the event with its hash computed in SQL, sets
+    /// <paramref name="batchSets"/> and the event pointer on the batch and returns the sequence number (no row when
+    /// nothing was written); then COMMIT in the same round trip. Npgsql sees the transaction end, and the caller's
+    /// dispose has nothing left to roll back; after an error the COMMIT is skipped and the dispose rolls back.
+    /// The hash is AuditChain.Link(prev, AuditChain.Canonical(entry)): the seq field (name, length, value, newline)
+    /// is written here because only this statement knows the number. The batch's updated_at, which the counter's
+    /// running maximum takes in, is the event's time in every write.
+    /// </summary>
+    public static string PostgresAppendAndCommit(string before, string mayWrite, string batchSets) => $"""
+        WITH {before},
+        next AS (
+            UPDATE event_sequence SET last_seq = last_seq + 1, high_water_at = GREATEST(high_water_at, @eventAt)
+            WHERE id = 1 AND {mayWrite} RETURNING last_seq AS seq, high_water_at),
+        event AS (
+            INSERT INTO batch_events (seq, batch_id, type, body, occurred_at, actor_key_id, station_id, addition_id, correction_id, prev_hash, hash)
+            SELECT next.seq, @eventBatchId, @eventType, @eventBody, @eventAt, @eventActorKeyId, @eventStationId, @eventAdditionId, @eventCorrectionId, prev.hash,
+                   encode(sha256(convert_to(prev.hash || 'seq:' || length(next.seq::text) || ':' || next.seq::text || chr(10) || @afterSeq, 'UTF8')), 'hex')
+            FROM next, prev
+            RETURNING seq)
+        UPDATE batches SET {batchSets}last_event_seq = event.seq, high_water_at = next.high_water_at FROM event, next WHERE batches.id = @eventBatchId
+        RETURNING event.seq;
+        COMMIT
+        """;
+
+    /// <summary>The parameters <see cref="PostgresAppendAndCommit"/> reads, from the event drafted without its number.</summary>
+    public static DynamicParameters PostgresParameters(EventRow draft, AdditionRow? addition, CorrectionRow? correction)
+    {
+        var parameters = new DynamicParameters();
+        parameters.AddDynamicParams(new
+        {
+            eventBatchId = draft.BatchId, eventType = draft.Type, eventBody = draft.Body, eventAt = draft.OccurredAt, eventActorKeyId = draft.ActorKeyId,
+            eventStationId = draft.StationId, eventAdditionId = draft.AdditionId, eventCorrectionId = draft.CorrectionId,
+            afterSeq = AuditChain.AfterSeq(draft, addition, correction),
+        });
+        return parameters;
     }
 }

@@ -68,6 +68,53 @@ public sealed class BatchStoreTests(ApiHosts hosts)
         Assert.Equal(["b-late", "b-early"], await Changed(30, behindSeq));
     }
 
+    [Theory, SqliteEngine, PostgresEngine]
+    public async Task A_write_that_loses_the_version_race_or_repeats_an_addition_id_writes_nothing_and_takes_no_event_number(string engine)
+    {
+        var host = await hosts.ServiceHostOnNewDatabaseAsync(engine);
+        await using var _ = host;
+        var store = host.Services.GetRequiredService<BatchStore>();
+        var database = host.Services.GetRequiredService<IDatabase>();
+        var nine = new DateTimeOffset(2026, 3, 2, 9, 0, 0, TimeSpan.Zero);
+        var audit = new EventAudit("k", "st-1");
+        Assert.True(await store.TryCreateAsync(new NewBatch("b-1", "st-1", "r", "{}", "h", "{}", "{}", "InProgress", "Created", "{}", nine, "k"), CancellationToken.None));
+        Assert.True((await store.TryAppendAdditionAsync(Addition("a-1", 0), 1, Replan(1, "a-1"), "{}", nine.AddMinutes(1), audit, CancellationToken.None)).Written);
+        var before = await StateAsync(database);
+
+        var stale = await store.TryAppendAdditionAsync(Addition("a-2", 1), 1, Replan(2, "a-2"), "{}", nine.AddMinutes(2), audit, CancellationToken.None);
+        var repeated = await store.TryAppendAdditionAsync(Addition("a-1", 1), 2, Replan(2, "a-1"), "{}", nine.AddMinutes(2), audit, CancellationToken.None);
+        var staleStatus = await store.TrySetStatusAsync("b-1", 1, "Aborted", "spilled", "Aborted", "{}", nine.AddMinutes(2), audit, CancellationToken.None);
+
+        Assert.Equal(WriteOutcome.Conflict, stale);
+        Assert.Equal(WriteOutcome.Conflict, repeated);
+        Assert.Equal(WriteOutcome.Conflict, staleStatus);
+        Assert.Equal(before, await StateAsync(database));
+        Assert.Equal((2L, 2L, 1L, 1L, 2L, "InProgress", 1L), before);
+        var next = await store.TryAppendAdditionAsync(Addition("a-2", 1), 2, null, "{}", nine.AddMinutes(3), audit, CancellationToken.None);
+        Assert.Equal(new WriteOutcome(true, 3), next);
+
+        static AdditionRow Addition(string id, long ordinal) => new()
+        {
+            BatchId = "b-1", AdditionId = id, Ordinal = ordinal, StepIndex = ordinal, ReadingG = 1.5, Stable = true, Source = "balance", LotId = "L1",
+            TrueMassG = 1.5, WithinWindow = false, RecordedAt = "2026-03-02T09:01:00.0000000Z", ContentHash = id, Response = "{}",
+        };
+        static PlanRevisionRow Replan(long revision, string cause) => new()
+        {
+            BatchId = "b-1", Revision = revision, Plan = "{}", ScaleFactor = 1.1, CauseAdditionId = cause, CreatedAt = "2026-03-02T09:01:00.0000000Z",
+        };
+    }
+
+    // Batch version, event counter, additions, plan revisions, events, status and plan revision in force of b-1.
+    private static async Task<(long, long, long, long, long, string, long)> StateAsync(IDatabase database)
+    {
+        await using var connection = await database.OpenAsync(CancellationToken.None);
+        return await connection.QuerySingleAsync<(long, long, long, long, long, string, long)>("""
+            SELECT b.version, (SELECT last_seq FROM event_sequence WHERE id = 1), (SELECT COUNT(*) FROM additions),
+                   (SELECT COUNT(*) FROM plan_revisions), (SELECT COUNT(*) FROM batch_events), b.status, b.plan_revision
+            FROM batches b WHERE b.id = 'b-1'
+            """);
+    }
+
     private static async Task<string> FirstPlanAsync(IDatabase database, string id)
     {
         await using var connection = await database.OpenAsync(CancellationToken.None);
