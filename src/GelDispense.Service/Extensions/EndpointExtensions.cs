@@ -14,9 +14,12 @@ public static class EndpointExtensions
         app.UseSwagger();
         app.UseSwaggerUI(options => options.DocumentTitle = "GelDispense API");
         app.UseGelDispenseSecurity();
-        // After authorization: a remembered answer goes only to a caller admitted to the route.
+        // After authorization: a remembered answer goes only to a caller admitted to the route. A remembered body was
+        // checked for unknown fields when it was first answered.
         var answers = app.Services.GetRequiredService<RestAnswerMemo>();
-        app.UseWhen(context => !RestProblemMiddleware.IsGrpc(context.Request), rest => rest.Use(answers.InvokeAsync));
+        app.UseWhen(context => !RestProblemMiddleware.IsGrpc(context.Request), rest => rest
+            .Use(answers.InvokeAsync)
+            .Use(UnknownJsonFields.InvokeAsync));
         return app;
     }
 
