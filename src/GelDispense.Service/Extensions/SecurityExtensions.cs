@@ -21,7 +21,8 @@ public static class SecurityExtensions
         var settings = AuthSettings.From(configuration);
         services.AddSingleton(settings);
         services.AddSingleton(RandomNumberGenerator.Create());
-        services.AddSingleton<ApiKeyStore>();
+        services.AddSingleton(provider => new ApiKeyStore(
+            provider.GetRequiredService<IDatabase>(), provider.GetRequiredService<TimeProvider>(), settings.KeyCachePeriod));
         services.AddSingleton<ApiKeyIssuer>();
         services.AddHostedService<BootstrapKeyHostedService>();
 

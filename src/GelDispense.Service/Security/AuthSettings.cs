@@ -18,6 +18,14 @@ public sealed class AuthSettings
     public int BurstPerKey { get; set; } = 400;
 
     /// <summary>
+    /// How long a replica reuses an API key it read from the database (0 or less: read it on every call). A key revoked
+    /// through another replica is still admitted here for at most this long; through this replica, never again.
+    /// </summary>
+    public double KeyCacheSeconds { get; set; } = 2;
+
+    public TimeSpan KeyCachePeriod => KeyCacheSeconds > 0 && double.IsFinite(KeyCacheSeconds) ? TimeSpan.FromSeconds(Math.Min(KeyCacheSeconds, 3600)) : TimeSpan.Zero;
+
+    /// <summary>
     /// PEM or DER file of the site CA that client certificates must chain to, for endpoints with a
     /// ClientCertificateMode; unset, Kestrel judges them against the machine trust store.
     /// </summary>

@@ -5,6 +5,7 @@ using GelDispense.Service.Security;
 using GelDispense.Service.Tests.Infrastructure;
 using Grpc.Core;
 using Grpc.Net.Client;
+using Microsoft.AspNetCore.Mvc.Testing;
 using Microsoft.AspNetCore.TestHost;
 using Microsoft.Extensions.DependencyInjection;
 using Microsoft.Extensions.Time.Testing;
@@ -75,6 +76,35 @@ public sealed class ApiKeyAuthenticationHandlerTests(ApiHosts hosts)
     }
 
     [Theory, SqliteEngine, PostgresEngine]
+    public async Task A_revoked_key_is_refused_at_once_by_the_revoking_replica_and_one_without_key_cache_and_by_a_caching_replica_once_its_period_has_passed(string engine)
+    {
+        var host = await hosts.ForAsync(engine);
+        var (revoking, revokingClock) = Replica(host, cacheSeconds: 2);
+        var (caching, cachingClock) = Replica(host, cacheSeconds: 2);
+        var (uncached, _) = Replica(host, cacheSeconds: 0);
+        await using var revokingReplica = revoking;
+        await using var cachingReplica = caching;
+        await using var uncachedReplica = uncached;
+        var issued = await revoking.Services.GetRequiredService<ApiKeyIssuer>().IssueAsync(Roles.Lims, "", null, "key cache test", CancellationToken.None);
+        foreach (var replica in new[] { revoking, caching, uncached })
+        {
+            Assert.Equal(HttpStatusCode.OK, await ListStatusAsync(replica, issued.Key));
+        }
+
+        await Demo.PostAsync(ClientOf(revoking, host.AdminKey), $"/v1/api-keys/{issued.Row.Id}:revoke", "{}");
+        Assert.Equal(HttpStatusCode.Unauthorized, await ListStatusAsync(revoking, issued.Key));
+        Assert.Equal(HttpStatusCode.Unauthorized, await ListStatusAsync(uncached, issued.Key));
+
+        // The trade of the cache: a replica that read the key before the revocation may reuse it for 2 s of its clock.
+        cachingClock.Advance(TimeSpan.FromSeconds(1.9));
+        Assert.Equal(HttpStatusCode.OK, await ListStatusAsync(caching, issued.Key));
+        cachingClock.Advance(TimeSpan.FromSeconds(0.1));
+        Assert.Equal(HttpStatusCode.Unauthorized, await ListStatusAsync(caching, issued.Key));
+        revokingClock.Advance(TimeSpan.FromMinutes(5));
+        Assert.Equal(HttpStatusCode.Unauthorized, await ListStatusAsync(revoking, issued.Key));
+    }
+
+    [Theory, SqliteEngine, PostgresEngine]
     public async Task A_key_is_refused_once_the_service_clock_passes_its_expiry_and_the_refusal_is_logged_without_the_secret(string engine)
     {
         var host = await hosts.ForAsync(engine);
@@ -122,5 +152,28 @@ public sealed class ApiKeyAuthenticationHandlerTests(ApiHosts hosts)
         var body = await listed.Content.ReadAsStringAsync();
         Assert.Contains((string)issued["apiKey"]!["id"]!, body, StringComparison.Ordinal);
         Assert.DoesNotContain(secret[ApiKeySecret.Marker.Length..], body, StringComparison.Ordinal);
+    }
+
+    // Another service process on the host's database, with its own key cache and its own stopped clock.
+    private static (WebApplicationFactory<Program> Replica, FakeTimeProvider Clock) Replica(ServiceHost host, int cacheSeconds)
+    {
+        var clock = new FakeTimeProvider(DateTimeOffset.UtcNow);
+        var replica = host.WithWebHostBuilder(b => b
+            .UseSetting("Auth:KeyCacheSeconds", cacheSeconds.ToString(System.Globalization.CultureInfo.InvariantCulture))
+            .ConfigureTestServices(s => s.AddSingleton<TimeProvider>(clock)));
+        return (replica, clock);
+    }
+
+    private static HttpClient ClientOf(WebApplicationFactory<Program> replica, string key)
+    {
+        var client = replica.CreateDefaultClient();
+        client.DefaultRequestHeaders.Authorization = new AuthenticationHeaderValue("Bearer", key);
+        return client;
+    }
+
+    private static async Task<HttpStatusCode> ListStatusAsync(WebApplicationFactory<Program> replica, string key)
+    {
+        using var response = await ClientOf(replica, key).GetAsync("/v1/batches");
+        return response.StatusCode;
     }
 }
