@@ -24,8 +24,9 @@ public static class SwaggerExtensions
             if (File.Exists(contractDocs))
             {
                 // Grpc.Swagger's IncludeGrpcXmlComments fails to load against Swashbuckle 11 (its filter implements
-                // the older IOperationFilter), so Swashbuckle's own XML reader documents messages and methods.
+                // the older IOperationFilter): Swashbuckle's own XML reader documents the messages, ours the operations.
                 options.IncludeXmlComments(contractDocs);
+                options.OperationFilter<ProtoMethodSummaries>(ProtoMethodSummaries.Read(contractDocs));
             }
         });
         return services;

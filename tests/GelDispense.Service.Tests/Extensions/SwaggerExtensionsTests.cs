@@ -36,6 +36,9 @@ public sealed class SwaggerExtensionsTests(ApiHosts hosts)
             Assert.True(paths.ContainsKey(path) && paths[path]![method] is not null, $"{method.ToUpperInvariant()} {path} is missing from the OpenAPI document");
         }
 
+        // Operation summaries are the rpc comments of plan_service.proto and batch_service.proto.
+        Assert.StartsWith("Builds the dispensing plan", (string?)paths["/v1/plans"]!["post"]!["summary"], StringComparison.Ordinal);
+        Assert.All(routes, r => Assert.False(string.IsNullOrWhiteSpace((string?)paths[r.Path]![r.Method]!["summary"]), $"{r.Method} {r.Path} has no summary"));
         var recipe = document["components"]!["schemas"]!["Recipe"]!["properties"]!["temperatureC"]!;
         Assert.Contains("Unset means 20", (string)recipe["description"]!, StringComparison.Ordinal);
     }
