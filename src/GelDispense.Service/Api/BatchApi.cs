@@ -9,9 +9,10 @@ using Microsoft.AspNetCore.Authorization;
 
 namespace GelDispense.Service.Api;
 
-/// <summary>Batches at stations: create, read, additions and their corrections, as-made, complete/abort, the LIMS list, CSV export, the live watch stream and the audit check.</summary>
+/// <summary>Batches at stations: create, read, additions and their corrections, as-made, plan revisions, complete/abort, the LIMS list, CSV export, the live watch stream and the audit check.</summary>
 public sealed class BatchApi(
-    Planner planner, BatchLedger ledger, AdditionRecorder additions, AdditionCorrector corrections, AuditVerifier audit, BatchEventSignal signal, RequestLog log)
+    Planner planner, BatchLedger ledger, AdditionRecorder additions, AdditionCorrector corrections, PlanHistory plans, AuditVerifier audit,
+    BatchEventSignal signal, RequestLog log)
     : BatchService.BatchServiceBase
 {
     /// <summary>How often a watcher re-reads the event log for events written by other replicas.</summary>
@@ -58,6 +59,13 @@ public sealed class BatchApi(
         log.Batch(request.BatchId);
         await RequireOwnBatchAsync(request.BatchId, "batchId", context);
         return await additions.AsMadeAsync(request.BatchId, context.CancellationToken);
+    }
+
+    [Authorize(Policy = Policies.Read)]
+    public override Task<PlanRevision> GetPlanRevision(GetPlanRevisionRequest request, ServerCallContext context)
+    {
+        log.Batch(request.BatchId);
+        return plans.GetAsync(request.BatchId, request.Revision, Caller.From(context.GetHttpContext().User), context.CancellationToken);
     }
 
     [Authorize(Policy = Policies.RunBatches)]

@@ -37,6 +37,7 @@ public static class ServiceCollectionExtensions
         services.AddSingleton<BatchPlanCache>();
         services.AddSingleton<AdditionRecorder>();
         services.AddSingleton<AdditionCorrector>();
+        services.AddSingleton<PlanHistory>();
         services.AddSingleton<AuditVerifier>();
         services.AddScoped<RequestLog>();
         return services;
