@@ -14,7 +14,7 @@ namespace GelDispense.Service.Batches;
 /// Batch life cycle over the store: create with a plan, read, complete, abort, and the LIMS page. Writes that
 /// lose an optimistic-concurrency race are retried from a fresh read after a short random pause.
 /// </summary>
-public sealed class BatchLedger(BatchStore store, BatchEventSignal signal, TimeProvider time, Random random)
+public sealed class BatchLedger(BatchStore store, BatchPlanCache plans, BatchEventSignal signal, TimeProvider time, Random random)
 {
     public const int MaxAttempts = 60;
     public const int MaxPageSize = 200;
@@ -36,10 +36,14 @@ public sealed class BatchLedger(BatchStore store, BatchEventSignal signal, TimeP
         var batch = new NewBatch(id, request.StationId.Trim(), request.Recipe.Name.Trim(), recipeBody, Hash(recipeBody),
             JsonFormatter.Default.Format(setup), JsonFormatter.Default.Format(plan), BatchMapping.Stored(BatchStatus.InProgress),
             BatchEventType.Created.ToString(), JsonFormatter.Default.Format(created), at, caller.ActorId);
+        // Before storing: a batch whose chemistry cannot be prepared is not stored at all.
+        var basis = await plans.BasisOfNewAsync(request.Recipe, setup, plan, cancellationToken);
         for (var attempt = 0; !await store.TryCreateAsync(batch, cancellationToken); attempt++)
         {
             await PauseAsync(attempt, cancellationToken);
         }
+
+        plans.Adopt(id, basis);
 
         signal.Notify(id);
         return await GetAsync(id, cancellationToken);

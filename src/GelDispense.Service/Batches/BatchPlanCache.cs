@@ -52,6 +52,27 @@ public sealed class BatchPlanCache(BatchStore store, ReagentDirectory reagents) 
         return Keep(key, basis);
     }
 
+    /// <summary>
+    /// The basis of a batch about to be stored, from the recipe, devices and first plan its creation has in hand: the
+    /// same objects its stored origin parses back to (protobuf JSON round-trips them exactly). Batches started from the
+    /// same recipe on the same devices with the same first plan share one basis, so it is built once for all of them.
+    /// </summary>
+    public async Task<BatchBasis> BasisOfNewAsync(Recipe recipe, CreateBatchRequest setup, DispensingPlan firstPlan, CancellationToken cancellationToken)
+    {
+        var devices = new CreateBatchRequest { Recipe = recipe, Balance = setup.Balance, Pipette = setup.Pipette, Air = setup.Air };
+        var key = new ContentKey(devices.ToByteString(), firstPlan.ToByteString());
+        if (_cache.TryGetValue(key, out BatchBasis? cached) && cached is not null)
+        {
+            return cached;
+        }
+
+        // Copies: the basis outlives this request and keeps parts of them.
+        return Keep(key, await BatchBasis.CreateAsync(recipe.Clone(), setup.Clone(), firstPlan.Clone(), reagents, cancellationToken));
+    }
+
+    /// <summary>Keeps <paramref name="basis"/> for a batch just stored, so its first addition neither reads its origin back nor rebuilds it.</summary>
+    public void Adopt(string batchId, BatchBasis basis) => Keep(new BasisKey(batchId), basis);
+
     public void Dispose() => _cache.Dispose();
 
     private T Keep<T>(object key, T value) => _cache.Set(key, value, new MemoryCacheEntryOptions { Size = 1 });
@@ -59,4 +80,6 @@ public sealed class BatchPlanCache(BatchStore store, ReagentDirectory reagents) 
     private readonly record struct BasisKey(string BatchId);
 
     private readonly record struct RevisionKey(string BatchId, long Revision);
+
+    private readonly record struct ContentKey(ByteString RecipeAndDevices, ByteString FirstPlan);
 }
