@@ -35,7 +35,7 @@ public sealed class LocalBatchModel
     public static LocalBatchModel Create(Contract.Batch batch)
     {
         var recipe = RecipeMapping.ToChemistry(batch.Recipe);
-        var request = Planner.Request(batch.Balance, batch.Pipette, batch.Air);
+        var request = Planner.Request(batch.Balance, batch.Pipette, batch.Air, batch.Options);
         var prepared = Formulation.Prepare(recipe, BuiltInReagents.CreateCatalog());
         var massesG = new double[prepared.Lines.Count];
         foreach (var step in batch.Steps)

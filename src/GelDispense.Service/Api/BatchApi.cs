@@ -24,7 +24,7 @@ public sealed class BatchApi(
         log.Station(request.StationId);
         var caller = Caller.From(context.GetHttpContext().User);
         caller.RequireStation(request.StationId.Trim(), "stationId");
-        var plan = await planner.PlanAsync(request.Recipe, request.Balance, request.Pipette, request.Air, context.CancellationToken);
+        var plan = await planner.PlanAsync(request.Recipe, request.Balance, request.Pipette, request.Air, request.Options, context.CancellationToken);
         var batch = await ledger.CreateAsync(request, plan, caller, context.CancellationToken);
         log.Batch(batch.Id);
         return batch;

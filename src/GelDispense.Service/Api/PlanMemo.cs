@@ -5,7 +5,7 @@ using Contract = GelDispense.Contracts.V1;
 namespace GelDispense.Service.Api;
 
 /// <summary>
-/// Remembers plans by the exact content of what they were planned from (recipe, balance, pipette, air), because a
+/// Remembers plans by the exact content of what they were planned from (recipe, balance, pipette, air, options), because a
 /// station asks for the same plan again with every batch of a recipe. A plan is a pure function of that content and
 /// of the reagent catalog, and the catalog only ever grows (custom reagents are never edited or removed, and a recipe
 /// naming a missing reagent fails and is not remembered), so a remembered plan is the plan a fresh computation would
@@ -18,8 +18,9 @@ public sealed class PlanMemo : IDisposable
 
     private readonly MemoryCache _plans = new(new MemoryCacheOptions { SizeLimit = CapacityBytes });
 
-    public static ByteString Key(Contract.Recipe? recipe, Contract.BalanceProfile? balance, Contract.PipetteProfile? pipette, Contract.AirConditions? air) =>
-        new Contract.CreatePlanRequest { Recipe = recipe, Balance = balance, Pipette = pipette, Air = air }.ToByteString();
+    public static ByteString Key(
+        Contract.Recipe? recipe, Contract.BalanceProfile? balance, Contract.PipetteProfile? pipette, Contract.AirConditions? air, Contract.PlanOptions? options) =>
+        new Contract.CreatePlanRequest { Recipe = recipe, Balance = balance, Pipette = pipette, Air = air, Options = options }.ToByteString();
 
     public async Task<Contract.DispensingPlan> GetOrPlanAsync(ByteString key, Func<Task<Contract.DispensingPlan>> plan)
     {

@@ -9,16 +9,17 @@ public sealed class Planner(ReagentDirectory reagents, PlanMemo memo)
 {
     public Task<Contract.DispensingPlan> PlanAsync(
         Contract.Recipe? recipe, Contract.BalanceProfile? balance, Contract.PipetteProfile? pipette, Contract.AirConditions? air,
-        CancellationToken cancellationToken) =>
-        memo.GetOrPlanAsync(PlanMemo.Key(recipe, balance, pipette, air), async () =>
+        Contract.PlanOptions? options, CancellationToken cancellationToken) =>
+        memo.GetOrPlanAsync(PlanMemo.Key(recipe, balance, pipette, air, options), async () =>
         {
             var chemistryRecipe = RecipeMapping.ToChemistry(recipe);
-            var request = Request(balance, pipette, air);
+            var request = Request(balance, pipette, air, options);
             var catalog = await reagents.LookupAsync(chemistryRecipe, cancellationToken);
             return PlanMapping.ToContract(PlanBuilder.Build(chemistryRecipe, catalog, request), recipe!.Scale);
         });
 
-    /// <summary>The station's devices and air as the library's plan request; bad values fail with their field names.</summary>
-    public static PlanRequest Request(Contract.BalanceProfile? balance, Contract.PipetteProfile? pipette, Contract.AirConditions? air) =>
-        new(DeviceMapping.ToChemistry(balance, "balance"), DeviceMapping.ToChemistry(pipette, "pipette"), DeviceMapping.ToChemistry(air, "air"));
+    /// <summary>The station's devices, air and plan options as the library's plan request; bad values fail with their field names.</summary>
+    public static PlanRequest Request(Contract.BalanceProfile? balance, Contract.PipetteProfile? pipette, Contract.AirConditions? air, Contract.PlanOptions? options) =>
+        new(DeviceMapping.ToChemistry(balance, "balance"), DeviceMapping.ToChemistry(pipette, "pipette"), DeviceMapping.ToChemistry(air, "air"),
+            PlanOptionsMapping.ToChemistry(options));
 }

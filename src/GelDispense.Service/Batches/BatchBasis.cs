@@ -48,7 +48,7 @@ public sealed class BatchBasis
     public static async Task<BatchBasis> CreateAsync(
         Contract.Recipe recipe, Contract.CreateBatchRequest setup, Contract.DispensingPlan firstPlan, ReagentDirectory reagents, CancellationToken cancellationToken)
     {
-        var request = Planner.Request(setup.Balance, setup.Pipette, setup.Air);
+        var request = Planner.Request(setup.Balance, setup.Pipette, setup.Air, setup.Options);
         var chemistryRecipe = RecipeMapping.ToChemistry(recipe);
         var prepared = Formulation.Prepare(chemistryRecipe, await reagents.LookupAsync(chemistryRecipe, cancellationToken));
         var massesG = new double[prepared.Lines.Count];

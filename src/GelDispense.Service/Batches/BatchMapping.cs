@@ -30,6 +30,7 @@ public static class BatchMapping
             Balance = setup.Balance,
             Pipette = setup.Pipette,
             Air = setup.Air,
+            Options = setup.Options,
             CreatedAt = Timestamp.FromDateTimeOffset(TimeText.Parse(row.CreatedAt)),
             UpdatedAt = Timestamp.FromDateTimeOffset(TimeText.Parse(row.UpdatedAt)),
             AbortReason = row.AbortReason,

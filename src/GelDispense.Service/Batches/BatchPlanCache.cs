@@ -55,11 +55,11 @@ public sealed class BatchPlanCache(BatchStore store, ReagentDirectory reagents) 
     /// <summary>
     /// The basis of a batch about to be stored, from the recipe, devices and first plan its creation has in hand: the
     /// same objects its stored origin parses back to (protobuf JSON round-trips them exactly). Batches started from the
-    /// same recipe on the same devices with the same first plan share one basis, so it is built once for all of them.
+    /// same recipe on the same devices, with the same options and first plan, share one basis, so it is built once for all of them.
     /// </summary>
     public async Task<BatchBasis> BasisOfNewAsync(Recipe recipe, CreateBatchRequest setup, DispensingPlan firstPlan, CancellationToken cancellationToken)
     {
-        var devices = new CreateBatchRequest { Recipe = recipe, Balance = setup.Balance, Pipette = setup.Pipette, Air = setup.Air };
+        var devices = new CreateBatchRequest { Recipe = recipe, Balance = setup.Balance, Pipette = setup.Pipette, Air = setup.Air, Options = setup.Options };
         var key = new ContentKey(devices.ToByteString(), firstPlan.ToByteString());
         if (_cache.TryGetValue(key, out BatchBasis? cached) && cached is not null)
         {

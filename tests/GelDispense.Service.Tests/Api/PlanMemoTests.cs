@@ -12,7 +12,7 @@ public sealed class PlanMemoTests
     public async Task The_same_request_is_planned_once_and_every_caller_gets_its_own_copy()
     {
         using var memo = new PlanMemo();
-        var key = PlanMemo.Key(new Recipe { Name = "silica-r4" }, Balance, null, null);
+        var key = PlanMemo.Key(new Recipe { Name = "silica-r4" }, Balance, null, null, null);
         var computed = 0;
         Task<DispensingPlan> Plan()
         {
@@ -22,7 +22,7 @@ public sealed class PlanMemoTests
 
         var first = await memo.GetOrPlanAsync(key, Plan);
         first.Steps[0].TargetMassG = 99;
-        var second = await memo.GetOrPlanAsync(PlanMemo.Key(new Recipe { Name = "silica-r4" }, Balance, null, null), Plan);
+        var second = await memo.GetOrPlanAsync(PlanMemo.Key(new Recipe { Name = "silica-r4" }, Balance, null, null, null), Plan);
 
         Assert.Equal(1, computed);
         Assert.Equal(20.83, second.Steps[0].TargetMassG);
@@ -32,7 +32,7 @@ public sealed class PlanMemoTests
     public async Task A_request_that_failed_is_planned_again_next_time()
     {
         using var memo = new PlanMemo();
-        var key = PlanMemo.Key(new Recipe { Name = "needs-a-custom-reagent" }, Balance, null, null);
+        var key = PlanMemo.Key(new Recipe { Name = "needs-a-custom-reagent" }, Balance, null, null, null);
 
         await Assert.ThrowsAsync<InvalidInputException>(() => memo.GetOrPlanAsync(key,
             () => throw new InvalidInputException("recipe.components[0].reagentId", "ipa-dry", "no such reagent")));
@@ -42,15 +42,17 @@ public sealed class PlanMemoTests
     }
 
     [Fact]
-    public void Requests_that_differ_in_any_device_have_different_keys()
+    public void Requests_that_differ_in_any_device_or_option_have_different_keys()
     {
         var recipe = new Recipe { Name = "silica-r4" };
 
-        var plain = PlanMemo.Key(recipe, Balance, null, null);
-        var warmer = PlanMemo.Key(recipe, Balance, null, new AirConditions { TemperatureC = 25 });
-        var withPipette = PlanMemo.Key(recipe, Balance, new PipetteProfile { Id = "P1000", NominalVolumeUl = 1000, MinVolumeUl = 100 }, null);
+        var plain = PlanMemo.Key(recipe, Balance, null, null, null);
+        var warmer = PlanMemo.Key(recipe, Balance, null, new AirConditions { TemperatureC = 25 }, null);
+        var withPipette = PlanMemo.Key(recipe, Balance, new PipetteProfile { Id = "P1000", NominalVolumeUl = 1000, MinVolumeUl = 100 }, null, null);
+        var inASmallVessel = PlanMemo.Key(recipe, Balance, null, null, new PlanOptions { VesselCapacityMl = 250 });
 
         Assert.NotEqual(plain, warmer);
         Assert.NotEqual(plain, withPipette);
+        Assert.NotEqual(plain, inASmallVessel);
     }
 }

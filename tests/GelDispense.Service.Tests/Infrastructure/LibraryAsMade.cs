@@ -24,7 +24,7 @@ internal static class LibraryAsMade
             massesG[step.ComponentIndex] += step.TargetMassG;
         }
 
-        var request = Planner.Request(batch.Balance, batch.Pipette, batch.Air);
+        var request = Planner.Request(batch.Balance, batch.Pipette, batch.Air, batch.Options);
         var plan = PlanBuilder.Build(prepared.WithMasses(massesG), request);
         return AsMadeCalculator.Compute(plan, [.. readings.Select(r => new RecordedReading(r.StepIndex, r.ReadingG))], request.Options).Composition;
     }
