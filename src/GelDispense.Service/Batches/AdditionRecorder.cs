@@ -23,7 +23,8 @@ namespace GelDispense.Service.Batches;
 /// addition out of window re-plans the remaining steps; the re-plan is stored as the next plan revision in the same
 /// transaction as the addition.
 /// </remarks>
-public sealed class AdditionRecorder(BatchLedger ledger, BatchStore store, BatchPlanCache plans, BatchEventSignal signal, TimeProvider time)
+public sealed class AdditionRecorder(
+    BatchLedger ledger, BatchStore store, BatchPlanCache plans, BatchProgressMemo memo, BatchEventSignal signal, TimeProvider time)
 {
     public static readonly string[] Sources = ["balance", "manual", "dispenser"];
 
@@ -34,7 +35,10 @@ public sealed class AdditionRecorder(BatchLedger ledger, BatchStore store, Batch
             request.ReadingG.ToString("R", CultureInfo.InvariantCulture), request.Stable, source, request.LotId));
         for (var attempt = 0; ; attempt++)
         {
-            var (head, additions, corrections) = await store.ProgressAsync(request.BatchId, cancellationToken) ?? throw ApiException.NotFound("batchId", request.BatchId, "batch");
+            // The first attempt may start from this process's last write to the batch; every retry reads the database.
+            var remembered = attempt == 0 ? memo.Find(request.BatchId) : null;
+            var progress = remembered ?? await store.ProgressAsync(request.BatchId, cancellationToken) ?? throw ApiException.NotFound("batchId", request.BatchId, "batch");
+            var (head, additions, corrections) = progress;
             caller.RequireStation(head.StationId, "batchId");
             if (additions.FirstOrDefault(a => a.AdditionId == request.AdditionId) is { } earlier)
             {
@@ -93,11 +97,17 @@ public sealed class AdditionRecorder(BatchLedger ledger, BatchStore store, Batch
                 new EventAudit(caller.ActorId, head.StationId), cancellationToken);
             if (outcome.Written)
             {
+                memo.RememberAfter(progress, stored, revision);
                 signal.Notify(head.Id);
                 return response;
             }
 
-            await ledger.PauseAsync(attempt, cancellationToken);
+            memo.Forget(head.Id);
+            if (remembered is null)
+            {
+                // A concurrent writer won; a remembered progress that lost was only out of date, and is read again at once.
+                await ledger.PauseAsync(attempt, cancellationToken);
+            }
         }
     }
 

@@ -35,6 +35,7 @@ public static class ServiceCollectionExtensions
         services.AddSingleton<BatchEventSignal>();
         services.AddSingleton<BatchLedger>();
         services.AddSingleton<BatchPlanCache>();
+        services.AddSingleton<BatchProgressMemo>();
         services.AddSingleton<AdditionRecorder>();
         services.AddSingleton<AdditionCorrector>();
         services.AddSingleton<PlanHistory>();

@@ -1,5 +1,7 @@
 using GelDispense.Contracts.V1;
 using GelDispense.Service.Tests.Infrastructure;
+using Grpc.Core;
+using Grpc.Net.Client;
 
 namespace GelDispense.Service.Tests.Batches;
 
@@ -37,5 +39,30 @@ public sealed class AdditionRecorderTests(ApiHosts hosts)
         Assert.Equal(1 + clients, batch.Version);
         var events = await new BatchService.BatchServiceClient(host.Channel()).GetAsMadeAsync(new GetAsMadeRequest { BatchId = id });
         Assert.Equal(3, events.StepsDone);
+    }
+
+    [Theory, SqliteEngine, PostgresEngine]
+    public async Task A_replica_whose_own_last_write_to_a_batch_is_out_of_date_records_on_the_batch_as_it_now_stands(string engine)
+    {
+        var host = await hosts.ForAsync(engine);
+        await using var other = host.WithWebHostBuilder(_ => { });
+        var here = new BatchService.BatchServiceClient(host.Channel());
+        var there = new BatchService.BatchServiceClient(GrpcChannel.ForAddress(other.Server.BaseAddress, new GrpcChannelOptions { HttpHandler = other.Server.CreateHandler() }));
+        var admin = new Metadata { { "Authorization", "Bearer " + host.AdminKey } };
+        var id = (string)(await Demo.StartBatchAsync(host.CreateClient()))["id"]!;
+        RecordAdditionRequest Addition(string additionId, double readingG) => new() { BatchId = id, AdditionId = additionId, StepIndex = 0, ReadingG = readingG, Stable = true };
+
+        await here.RecordAdditionAsync(Addition("r1", 1.0));
+        var elsewhere = await there.RecordAdditionAsync(Addition("r2", 2.0), admin);
+        var replayed = await here.RecordAdditionAsync(Addition("r2", 2.0));
+        var third = await here.RecordAdditionAsync(Addition("r3", 3.0));
+
+        Assert.True(replayed.Replayed);
+        Assert.Equal(elsewhere.AsMade, replayed.AsMade);
+        var batch = await here.GetBatchAsync(new GetBatchRequest { Id = id });
+        Assert.Equal(["r1", "r2", "r3"], batch.Additions.Select(a => a.AdditionId));
+        Assert.Equal(4, batch.Version);
+        // Judged with r2 in the vessel: the answer's as-made is the one computed from the database afterwards.
+        Assert.Equal(await here.GetAsMadeAsync(new GetAsMadeRequest { BatchId = id }), third.AsMade);
     }
 }
