@@ -28,7 +28,7 @@ internal static class RunCommand
             try
             {
                 var config = balance.Load(parse);
-                start = options.Start(parse, config.Balance.ReadabilityG, config.Pipette);
+                start = options.Start(parse, config.Balance.ReadabilityG, config.Pipette, config.Vessel);
                 settings = new RunSettings
                 {
                     Machine = new() { Mode = options.Mode(parse), ZeroBandG = 5 * config.Balance.ReadabilityG },

@@ -38,7 +38,7 @@ internal sealed class RunOptions
         }
     }
 
-    public BatchStart Start(ParseResult parse, double readabilityG, Configuration.PipetteConfig? pipette)
+    public BatchStart Start(ParseResult parse, double readabilityG, Configuration.PipetteConfig? pipette, Configuration.VesselConfig? vessel)
     {
         var recipe = parse.GetValue(Recipe);
         var batch = parse.GetValue(Batch);
@@ -54,7 +54,7 @@ internal sealed class RunOptions
         }
 
         var pipetteProfile = pipette is null ? null : new PipetteProfile { Id = pipette.Name, NominalVolumeUl = pipette.NominalVolumeUl, MinVolumeUl = pipette.MinVolumeUl };
-        return new BatchStart(recipe is null ? null : RecipeFile.Load(recipe.FullName), batch, balance, pipetteProfile);
+        return new BatchStart(recipe is null ? null : RecipeFile.Load(recipe.FullName), batch, balance, pipetteProfile, Options: vessel?.ToPlanOptions());
     }
 
     public ConfirmMode Mode(ParseResult parse) => parse.GetValue(Confirm)?.ToLowerInvariant() switch

@@ -22,6 +22,12 @@ internal static partial class StationChecks
             errors.Require(pipette.NominalVolumeUl > 0, "pipette.nominalVolumeUl", pipette.NominalVolumeUl, "must be above 0 µL");
             errors.Require(pipette.MinVolumeUl > 0 && pipette.MinVolumeUl <= pipette.NominalVolumeUl, "pipette.minVolumeUl", pipette.MinVolumeUl, "must be above 0 and at most the nominal volume");
         }
+
+        if (config.Vessel is { } vessel)
+        {
+            errors.Require(vessel.TareG >= 0 && double.IsFinite(vessel.TareG), "vessel.tareG", vessel.TareG, "must be 0 g or more");
+            errors.Require(vessel.CapacityMl is null || (vessel.CapacityMl > 0 && double.IsFinite(vessel.CapacityMl.Value)), "vessel.capacityMl", vessel.CapacityMl, "must be above 0 mL");
+        }
     }
 
     private static void CheckStandbys(StationConfig config, Uri? address, ErrorList errors)

@@ -22,4 +22,6 @@ public sealed record StationConfig
     public StabilityConfig Stability { get; init; } = new();
 
     public PipetteConfig? Pipette { get; init; }
+
+    public VesselConfig? Vessel { get; init; }
 }

@@ -60,7 +60,7 @@ public sealed class StationSession : IAsyncDisposable
 
         if (start.Recipe is { } recipe)
         {
-            var request = new CreateBatchRequest { StationId = Config.StationId, Recipe = recipe, Balance = start.Balance, Pipette = start.Pipette, Air = start.Air };
+            var request = new CreateBatchRequest { StationId = Config.StationId, Recipe = recipe, Balance = start.Balance, Pipette = start.Pipette, Air = start.Air, Options = start.Options };
             try
             {
                 return await Service.CreateBatchAsync(request, cancellationToken).ConfigureAwait(false);

@@ -95,6 +95,15 @@ public class BalanceSetupTests
     }
 
     [Fact]
+    public void A_vessel_with_a_negative_tare_or_no_volume_is_refused_field_by_field()
+    {
+        var config = Serial with { Vessel = new VesselConfig { TareG = -2, CapacityMl = 0 } };
+
+        Assert.Equal(["vessel.tareG", "vessel.capacityMl"], Errors(config).Select(e => e.Field));
+        Assert.NotNull(BalanceSetup.From(Serial with { Vessel = new VesselConfig { TareG = 63.5 } }));
+    }
+
+    [Fact]
     public void Standby_addresses_that_are_not_http_mix_schemes_or_repeat_are_each_named_by_index()
     {
         var config = Serial with

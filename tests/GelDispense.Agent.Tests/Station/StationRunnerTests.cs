@@ -1,7 +1,9 @@
+using GelDispense.Agent.Configuration;
 using GelDispense.Agent.Demo;
 using GelDispense.Agent.Journal;
 using GelDispense.Agent.Sequencing;
 using GelDispense.Agent.Simulation;
+using GelDispense.Agent.Station;
 using GelDispense.Agent.Tests.Support;
 using GelDispense.Contracts.V1;
 
@@ -121,6 +123,20 @@ public sealed class StationRunnerTests : TempDirectoryTest
         // What was weighed is the delivery, not a part of it: within a few percent of the first plan's target (a re-plan
         // after a coarse reading elsewhere may move the target a little).
         Assert.InRange(delivered.ReadingG, ammonia.TargetReadingG * 0.97, ammonia.TargetReadingG * 1.03);
+    }
+
+    [Fact]
+    public async Task A_batch_started_in_a_configured_vessel_is_planned_and_kept_with_its_tare_and_capacity()
+    {
+        await using var rig = await StationRig.StartAsync(Dir, new Dictionary<int, double>(), Quick);
+        using var limit = new CancellationTokenSource(Limit);
+        var vessel = new VesselConfig { TareG = 63.5, CapacityMl = 150 };
+
+        var batch = await rig.Session.StartAsync(
+            new BatchStart(DemoScenario.Recipe(), null, rig.Devices.Balance, rig.Devices.Pipette, Options: vessel.ToPlanOptions()), rig.Display, limit.Token);
+
+        var stored = await rig.ServiceBatchAsync(batch.Id);
+        Assert.Equal((63.5, 150.0), (stored.Options.VesselTareG, stored.Options.VesselCapacityMl));
     }
 
     /// <summary>Pulls the balance cable once the given step has the given mass poured.</summary>
