@@ -139,6 +139,24 @@ public sealed class StationRunnerTests : TempDirectoryTest
         Assert.Equal((63.5, 150.0), (stored.Options.VesselTareG, stored.Options.VesselCapacityMl));
     }
 
+    [Fact]
+    public async Task A_vessel_kept_on_the_balance_gets_running_targets_and_its_batch_is_weighed_without_re_taring_within_spec()
+    {
+        await using var rig = await StationRig.StartAsync(Dir, new Dictionary<int, double>(), Quick);
+        using var limit = new CancellationTokenSource(Limit);
+        var batch = await rig.Session.StartAsync(
+            new BatchStart(DemoScenario.Recipe(), null, rig.Devices.Balance, rig.Devices.Pipette, Options: new VesselConfig { Cumulative = true }.ToPlanOptions()), rig.Display, limit.Token);
+
+        var result = await rig.RunAsync(batch, limit.Token);
+
+        var stored = await rig.ServiceBatchAsync(batch.Id);
+        Assert.True(result.Completed, rig.Display.Log);
+        Assert.True(rig.Display.Said("cumulative readings"), rig.Display.Log);
+        Assert.Equal(6, stored.Additions.Count);
+        Assert.All(stored.Additions, a => Assert.True(a.WithinWindow, $"step {a.StepIndex} out of window\n{rig.Display.Log}"));
+        Assert.True(result.AsMade!.WithinSpec, rig.Display.Log);
+    }
+
     /// <summary>Pulls the balance cable once the given step has the given mass poured.</summary>
     private sealed class CableCutter(ITechnician inner, ControlledPort port, int step, double cutAtG) : ITechnician
     {
