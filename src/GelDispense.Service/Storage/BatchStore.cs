@@ -332,14 +332,19 @@ public sealed class BatchStore(IDatabase database)
             "prev AS (SELECT COALESCE((SELECT hash FROM batch_events WHERE batch_id = @eventBatchId ORDER BY seq DESC LIMIT 1), '') AS hash FROM claim)",
         };
         var sets = "version = version + 1, updated_at = @eventAt, ";
+        // The counter is bumped only once the rows are in (their TOAST compression included): its lock is held to COMMIT,
+        // so nothing that can be done before it is done after it. A row that cannot be inserted fails before it, too.
+        var mayWrite = "EXISTS (SELECT 1 FROM claim)";
         if (write.Insert is not null)
         {
-            before.Add($"written AS ({write.Insert} FROM claim)");
+            before.Add($"written AS ({write.Insert} FROM claim RETURNING 1)");
+            mayWrite += " AND EXISTS (SELECT 1 FROM written)";
         }
 
         if (write.Replan is not null)
         {
-            before.Add($"replan AS ({InsertReplan} FROM claim)");
+            before.Add($"replan AS ({InsertReplan} FROM claim RETURNING 1)");
+            mayWrite += " AND EXISTS (SELECT 1 FROM replan)";
             sets += "plan_revision = @replanRevision, ";
         }
 
@@ -348,7 +353,7 @@ public sealed class BatchStore(IDatabase database)
             sets += "status = @status, abort_reason = @abortReason, ";
         }
 
-        return EventLog.PostgresAppendAndCommit(string.Join(",\n", before), "EXISTS (SELECT 1 FROM claim)", sets);
+        return EventLog.PostgresAppendAndCommit(string.Join(",\n", before), mayWrite, sets);
     }
 
     private static DynamicParameters PostgresWriteParameters(VersionedWrite write, EventRow draft)
