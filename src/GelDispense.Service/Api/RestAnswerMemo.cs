@@ -71,9 +71,11 @@ public sealed class RestAnswerMemo : IDisposable
         var original = response.Body;
         using var captured = new MemoryStream();
         response.Body = captured;
+        // The REST edge buffers the answer, so the response starts after this method has decided whether to keep it.
+        var stored = false;
         response.OnStarting(() =>
         {
-            response.Headers["Cache-Status"] = CacheName + (response.StatusCode == StatusCodes.Status200OK ? "; fwd=miss; stored" : "; fwd=miss");
+            response.Headers["Cache-Status"] = CacheName + (stored ? "; fwd=miss; stored" : "; fwd=miss");
             return Task.CompletedTask;
         });
         try
@@ -89,6 +91,7 @@ public sealed class RestAnswerMemo : IDisposable
         {
             var body = captured.ToArray();
             _answers.Set(key, new Answer(body, response.ContentType), new MemoryCacheEntryOptions { Size = key.Length + body.Length });
+            stored = true;
         }
 
         captured.Position = 0;
