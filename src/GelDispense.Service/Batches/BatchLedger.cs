@@ -38,7 +38,8 @@ public sealed class BatchLedger(BatchStore store, BatchPlanCache plans, BatchEve
             BatchEventType.Created.ToString(), JsonFormatter.Default.Format(created), at, caller.ActorId);
         // Before storing: a batch whose chemistry cannot be prepared is not stored at all.
         var basis = await plans.BasisOfNewAsync(request.Recipe, setup, plan, cancellationToken);
-        for (var attempt = 0; !await store.TryCreateAsync(batch, cancellationToken); attempt++)
+        BatchRow? stored;
+        for (var attempt = 0; (stored = await store.TryCreateAsync(batch, cancellationToken)) is null; attempt++)
         {
             await PauseAsync(attempt, cancellationToken);
         }
@@ -46,7 +47,8 @@ public sealed class BatchLedger(BatchStore store, BatchPlanCache plans, BatchEve
         plans.Adopt(id, basis);
 
         signal.Notify(id);
-        return await GetAsync(id, cancellationToken);
+        // Answered from the row as stored, not read back: a new batch has no additions or corrections yet.
+        return BatchMapping.ToContract(stored, [], []);
     }
 
     public async Task<Batch> GetAsync(string id, CancellationToken cancellationToken)

@@ -38,30 +38,39 @@ public sealed class BatchStore(IDatabase database)
 
     static BatchStore() => DefaultTypeMap.MatchNamesWithUnderscores = true;
 
-    /// <summary>Stores a batch; false when a concurrent writer took the same recipe revision number (retry).</summary>
-    public async Task<bool> TryCreateAsync(NewBatch batch, CancellationToken cancellationToken)
+    /// <summary>
+    /// Stores a batch and returns it as stored (what <see cref="FindAsync"/> would read back); null when a concurrent
+    /// writer took the same recipe revision number (retry).
+    /// </summary>
+    public async Task<BatchRow?> TryCreateAsync(NewBatch batch, CancellationToken cancellationToken)
     {
         using var turn = await database.EnterWriteAsync(cancellationToken);
         await using var connection = await database.OpenAsync(cancellationToken);
         await using var transaction = await connection.BeginTransactionAsync(cancellationToken);
         try
         {
-            var revisionId = await RecipeRevisionAsync(connection, transaction, batch);
+            var (revisionId, revision) = await RecipeRevisionAsync(connection, transaction, batch);
             // The batch points at its first event once that has its number (EventLog).
             await connection.ExecuteAsync("""
                 INSERT INTO batches (id, station_id, status, recipe_revision_id, setup, plan, abort_reason, created_at, updated_at, version, last_event_seq)
                 VALUES (@Id, @StationId, @Status, @revisionId, @Setup, @Plan, '', @at, @at, 1, 0)
                 """, new { batch.Id, batch.StationId, batch.Status, revisionId, batch.Setup, batch.Plan, at = TimeText.Format(batch.At) }, transaction);
-            await EventLog.AppendAndCommitAsync(database, connection, transaction, "", seq => new EventRow
+            var eventSeq = await EventLog.AppendAndCommitAsync(database, connection, transaction, "", seq => new EventRow
             {
                 Seq = seq, BatchId = batch.Id, Type = batch.EventType, Body = batch.EventBody, OccurredAt = TimeText.Format(batch.At),
                 ActorKeyId = batch.ActorKeyId, StationId = batch.StationId,
             }, null, null, cancellationToken);
-            return true;
+            // A recipe revision with the same content hash holds the same body.
+            return new BatchRow
+            {
+                Id = batch.Id, StationId = batch.StationId, Status = batch.Status, RecipeRevisionId = revisionId, RecipeName = batch.RecipeName,
+                RecipeRevision = revision, RecipeBody = batch.RecipeBody, Setup = batch.Setup, Plan = batch.Plan, PlanRevision = 0, AbortReason = "",
+                CreatedAt = TimeText.Format(batch.At), UpdatedAt = TimeText.Format(batch.At), Version = 1, LastEventSeq = eventSeq,
+            };
         }
         catch (DbException e) when (database.IsConflict(e))
         {
-            return false;
+            return null;
         }
     }
 
@@ -409,20 +418,22 @@ public sealed class BatchStore(IDatabase database)
         public (string Name, string AbortReason)? Status { get; init; }
     }
 
-    private static async Task<long> RecipeRevisionAsync(DbConnection connection, DbTransaction transaction, NewBatch batch)
+    private static async Task<(long Id, long Revision)> RecipeRevisionAsync(DbConnection connection, DbTransaction transaction, NewBatch batch)
     {
         var latest = await connection.QuerySingleOrDefaultAsync<(long Id, long Revision, string ContentHash)?>(
             "SELECT id, CAST(revision AS BIGINT), content_hash FROM recipe_revisions WHERE name = @RecipeName ORDER BY revision DESC LIMIT 1",
             new { batch.RecipeName }, transaction);
         if (latest is { } same && same.ContentHash == batch.RecipeHash)
         {
-            return same.Id;
+            return (same.Id, same.Revision);
         }
 
-        return await connection.ExecuteScalarAsync<long>("""
+        var revision = (latest?.Revision ?? 0) + 1;
+        var id = await connection.ExecuteScalarAsync<long>("""
             INSERT INTO recipe_revisions (name, revision, content_hash, body, created_at)
             VALUES (@RecipeName, @revision, @RecipeHash, @RecipeBody, @at) RETURNING id
-            """, new { batch.RecipeName, revision = (latest?.Revision ?? 0) + 1, batch.RecipeHash, batch.RecipeBody, at = TimeText.Format(batch.At) },
+            """, new { batch.RecipeName, revision, batch.RecipeHash, batch.RecipeBody, at = TimeText.Format(batch.At) },
             transaction);
+        return (id, revision);
     }
 }

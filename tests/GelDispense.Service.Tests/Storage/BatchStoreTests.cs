@@ -50,7 +50,7 @@ public sealed class BatchStoreTests(ApiHosts hosts)
         var nine = new DateTimeOffset(2026, 3, 2, 9, 0, 0, TimeSpan.Zero);
         foreach (var (id, minutes) in new[] { ("b-early", 0), ("b-ahead", 60), ("b-behind", 40), ("b-late", 50) })
         {
-            Assert.True(await store.TryCreateAsync(new NewBatch(id, "st-1", "r", "{}", "h", "{}", "{}", "InProgress", "Created", "{}", nine.AddMinutes(minutes), "k"), CancellationToken.None));
+            Assert.NotNull(await store.TryCreateAsync(new NewBatch(id, "st-1", "r", "{}", "h", "{}", "{}", "InProgress", "Created", "{}", nine.AddMinutes(minutes), "k"), CancellationToken.None));
         }
 
         var moved = await store.TrySetStatusAsync("b-early", 1, "Aborted", "spilled", "Aborted", "{}", nine.AddMinutes(90), new EventAudit("k", "st-1"), CancellationToken.None);
@@ -77,7 +77,7 @@ public sealed class BatchStoreTests(ApiHosts hosts)
         var database = host.Services.GetRequiredService<IDatabase>();
         var nine = new DateTimeOffset(2026, 3, 2, 9, 0, 0, TimeSpan.Zero);
         var audit = new EventAudit("k", "st-1");
-        Assert.True(await store.TryCreateAsync(new NewBatch("b-1", "st-1", "r", "{}", "h", "{}", "{}", "InProgress", "Created", "{}", nine, "k"), CancellationToken.None));
+        Assert.NotNull(await store.TryCreateAsync(new NewBatch("b-1", "st-1", "r", "{}", "h", "{}", "{}", "InProgress", "Created", "{}", nine, "k"), CancellationToken.None));
         Assert.True((await store.TryAppendAdditionAsync(Addition("a-1", 0), 1, Replan(1, "a-1"), "{}", nine.AddMinutes(1), audit, CancellationToken.None)).Written);
         var before = await StateAsync(database);
 
