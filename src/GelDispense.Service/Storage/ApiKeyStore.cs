@@ -20,8 +20,8 @@ public sealed class ApiKeyStore(IDatabase database, TimeProvider time, TimeSpan 
     {
         using var turn = await database.EnterWriteAsync(cancellationToken);
         await using var connection = await database.OpenAsync(cancellationToken);
-        await connection.ExecuteAsync(
-            $"INSERT INTO api_keys ({Columns}) VALUES (@Id, @Prefix, @KeyHash, @Role, @StationId, @Label, @CreatedAt, @ExpiresAt, @RevokedAt)", row);
+        await connection.ExecuteAsync(new CommandDefinition(
+            $"INSERT INTO api_keys ({Columns}) VALUES (@Id, @Prefix, @KeyHash, @Role, @StationId, @Label, @CreatedAt, @ExpiresAt, @RevokedAt)", row, cancellationToken: cancellationToken));
     }
 
     /// <summary>
@@ -34,15 +34,15 @@ public sealed class ApiKeyStore(IDatabase database, TimeProvider time, TimeSpan 
         await using var connection = await database.OpenAsync(cancellationToken);
         await using var transaction = await connection.BeginTransactionAsync(cancellationToken);
         // The event_sequence row lock serialises this check against another replica doing the same.
-        await connection.ExecuteAsync("UPDATE event_sequence SET last_seq = last_seq WHERE id = 1", transaction: transaction);
-        if (await connection.ExecuteScalarAsync<long>("SELECT COUNT(*) FROM api_keys", transaction: transaction) > 0)
+        await connection.ExecuteAsync(new CommandDefinition("UPDATE event_sequence SET last_seq = last_seq WHERE id = 1", transaction: transaction, cancellationToken: cancellationToken));
+        if (await connection.ExecuteScalarAsync<long>(new CommandDefinition("SELECT COUNT(*) FROM api_keys", transaction: transaction, cancellationToken: cancellationToken)) > 0)
         {
             return false;
         }
 
-        await connection.ExecuteAsync(
+        await connection.ExecuteAsync(new CommandDefinition(
             $"INSERT INTO api_keys ({Columns}) VALUES (@Id, @Prefix, @KeyHash, @Role, @StationId, @Label, @CreatedAt, @ExpiresAt, @RevokedAt)",
-            row, transaction);
+            row, transaction, cancellationToken: cancellationToken));
         await transaction.CommitAsync(cancellationToken);
         return true;
     }
@@ -64,7 +64,7 @@ public sealed class ApiKeyStore(IDatabase database, TimeProvider time, TimeSpan 
 
         var revocations = Interlocked.Read(ref _revocations);
         await using var connection = await database.OpenAsync(cancellationToken);
-        var row = await connection.QuerySingleOrDefaultAsync<ApiKeyRow>($"SELECT {Columns} FROM api_keys WHERE prefix = @prefix", new { prefix });
+        var row = await connection.QuerySingleOrDefaultAsync<ApiKeyRow>(new CommandDefinition($"SELECT {Columns} FROM api_keys WHERE prefix = @prefix", new { prefix }, cancellationToken: cancellationToken));
         if (row is not null && lookupCachePeriod > TimeSpan.Zero)
         {
             _byPrefix[prefix] = (row, now);
@@ -80,13 +80,13 @@ public sealed class ApiKeyStore(IDatabase database, TimeProvider time, TimeSpan 
     public async Task<ApiKeyRow?> FindAsync(string id, CancellationToken cancellationToken)
     {
         await using var connection = await database.OpenAsync(cancellationToken);
-        return await connection.QuerySingleOrDefaultAsync<ApiKeyRow>($"SELECT {Columns} FROM api_keys WHERE id = @id", new { id });
+        return await connection.QuerySingleOrDefaultAsync<ApiKeyRow>(new CommandDefinition($"SELECT {Columns} FROM api_keys WHERE id = @id", new { id }, cancellationToken: cancellationToken));
     }
 
     public async Task<IReadOnlyList<ApiKeyRow>> ListAsync(CancellationToken cancellationToken)
     {
         await using var connection = await database.OpenAsync(cancellationToken);
-        return [.. await connection.QueryAsync<ApiKeyRow>($"SELECT {Columns} FROM api_keys ORDER BY created_at DESC, id")];
+        return [.. await connection.QueryAsync<ApiKeyRow>(new CommandDefinition($"SELECT {Columns} FROM api_keys ORDER BY created_at DESC, id", cancellationToken: cancellationToken))];
     }
 
     /// <summary>Stamps the revocation time once; a second revoke keeps the first time.</summary>
@@ -94,8 +94,8 @@ public sealed class ApiKeyStore(IDatabase database, TimeProvider time, TimeSpan 
     {
         using var turn = await database.EnterWriteAsync(cancellationToken);
         await using var connection = await database.OpenAsync(cancellationToken);
-        await connection.ExecuteAsync(
-            "UPDATE api_keys SET revoked_at = @at WHERE id = @id AND revoked_at IS NULL", new { id, at = TimeText.Format(at) });
+        await connection.ExecuteAsync(new CommandDefinition(
+            "UPDATE api_keys SET revoked_at = @at WHERE id = @id AND revoked_at IS NULL", new { id, at = TimeText.Format(at) }, cancellationToken: cancellationToken));
         Interlocked.Increment(ref _revocations);
         foreach (var entry in _byPrefix.Where(entry => entry.Value.Row.Id == id))
         {

@@ -49,12 +49,12 @@ public sealed class BatchStore(IDatabase database)
         await using var transaction = await connection.BeginTransactionAsync(cancellationToken);
         try
         {
-            var (revisionId, revision) = await RecipeRevisionAsync(connection, transaction, batch);
+            var (revisionId, revision) = await RecipeRevisionAsync(connection, transaction, batch, cancellationToken);
             // The batch points at its first event once that has its number (EventLog).
-            await connection.ExecuteAsync("""
+            await connection.ExecuteAsync(new CommandDefinition("""
                 INSERT INTO batches (id, station_id, status, recipe_revision_id, setup, plan, abort_reason, created_at, updated_at, version, last_event_seq)
                 VALUES (@Id, @StationId, @Status, @revisionId, @Setup, @Plan, '', @at, @at, 1, 0)
-                """, new { batch.Id, batch.StationId, batch.Status, revisionId, batch.Setup, batch.Plan, at = TimeText.Format(batch.At) }, transaction);
+                """, new { batch.Id, batch.StationId, batch.Status, revisionId, batch.Setup, batch.Plan, at = TimeText.Format(batch.At) }, transaction, cancellationToken: cancellationToken));
             var eventSeq = await EventLog.AppendAndCommitAsync(database, connection, transaction, "", seq => new EventRow
             {
                 Seq = seq, BatchId = batch.Id, Type = batch.EventType, Body = batch.EventBody, OccurredAt = TimeText.Format(batch.At),
@@ -77,7 +77,7 @@ public sealed class BatchStore(IDatabase database)
     public async Task<BatchRow?> FindAsync(string id, CancellationToken cancellationToken)
     {
         await using var connection = await database.OpenAsync(cancellationToken);
-        return await connection.QuerySingleOrDefaultAsync<BatchRow>($"{SelectBatch} WHERE b.id = @id", new { id });
+        return await connection.QuerySingleOrDefaultAsync<BatchRow>(new CommandDefinition($"{SelectBatch} WHERE b.id = @id", new { id }, cancellationToken: cancellationToken));
     }
 
     /// <summary>
@@ -87,11 +87,11 @@ public sealed class BatchStore(IDatabase database)
     public async Task<BatchProgress?> ProgressAsync(string id, CancellationToken cancellationToken)
     {
         await using var connection = await database.OpenAsync(cancellationToken);
-        await using var reads = await connection.QueryMultipleAsync($"""
+        await using var reads = await connection.QueryMultipleAsync(new CommandDefinition($"""
             SELECT id, status, station_id, version, plan_revision FROM batches WHERE id = @id;
             {SelectAddition} WHERE batch_id = @id ORDER BY ordinal;
             {SelectCorrection} WHERE c.batch_id = @id ORDER BY e.seq
-            """, new { id });
+            """, new { id }, cancellationToken: cancellationToken));
         var head = await reads.ReadSingleOrDefaultAsync<BatchHead>();
         var additions = await reads.ReadAsync<AdditionRow>();
         var corrections = await reads.ReadAsync<CorrectionRow>();
@@ -102,43 +102,43 @@ public sealed class BatchStore(IDatabase database)
     public async Task<BatchOrigin?> OriginAsync(string id, CancellationToken cancellationToken)
     {
         await using var connection = await database.OpenAsync(cancellationToken);
-        return await connection.QuerySingleOrDefaultAsync<BatchOrigin>("""
+        return await connection.QuerySingleOrDefaultAsync<BatchOrigin>(new CommandDefinition("""
             SELECT b.id, r.body AS recipe_body, b.setup, b.plan AS first_plan
             FROM batches b JOIN recipe_revisions r ON r.id = b.recipe_revision_id WHERE b.id = @id
-            """, new { id });
+            """, new { id }, cancellationToken: cancellationToken));
     }
 
     /// <summary>A stored re-plan of a batch (revisions from 1; revision 0 is the batch's first plan).</summary>
     public async Task<PlanRevisionRow?> PlanRevisionAsync(string batchId, long revision, CancellationToken cancellationToken)
     {
         await using var connection = await database.OpenAsync(cancellationToken);
-        return await connection.QuerySingleOrDefaultAsync<PlanRevisionRow>(
+        return await connection.QuerySingleOrDefaultAsync<PlanRevisionRow>(new CommandDefinition(
             "SELECT batch_id, revision, plan, scale_factor, cause_addition_id, created_at FROM plan_revisions WHERE batch_id = @batchId AND revision = @revision",
-            new { batchId, revision });
+            new { batchId, revision }, cancellationToken: cancellationToken));
     }
 
     /// <summary>The response stored with an addition, which a replay of it returns unchanged.</summary>
     public async Task<string> ResponseAsync(string batchId, string additionId, CancellationToken cancellationToken)
     {
         await using var connection = await database.OpenAsync(cancellationToken);
-        return await connection.QuerySingleAsync<string>(
-            "SELECT response FROM additions WHERE batch_id = @batchId AND addition_id = @additionId", new { batchId, additionId });
+        return await connection.QuerySingleAsync<string>(new CommandDefinition(
+            "SELECT response FROM additions WHERE batch_id = @batchId AND addition_id = @additionId", new { batchId, additionId }, cancellationToken: cancellationToken));
     }
 
     /// <summary>The response stored with a correction, which a replay of it returns.</summary>
     public async Task<string> CorrectionResponseAsync(string batchId, string correctionId, CancellationToken cancellationToken)
     {
         await using var connection = await database.OpenAsync(cancellationToken);
-        return await connection.QuerySingleAsync<string>(
-            "SELECT response FROM addition_corrections WHERE batch_id = @batchId AND correction_id = @correctionId", new { batchId, correctionId });
+        return await connection.QuerySingleAsync<string>(new CommandDefinition(
+            "SELECT response FROM addition_corrections WHERE batch_id = @batchId AND correction_id = @correctionId", new { batchId, correctionId }, cancellationToken: cancellationToken));
     }
 
     /// <summary>The sequence of the event that recorded an addition; 0 for additions recorded before events named them.</summary>
     public async Task<long> AdditionEventSeqAsync(string batchId, string additionId, CancellationToken cancellationToken)
     {
         await using var connection = await database.OpenAsync(cancellationToken);
-        return await connection.ExecuteScalarAsync<long?>(
-            "SELECT seq FROM batch_events WHERE batch_id = @batchId AND addition_id = @additionId", new { batchId, additionId }) ?? 0;
+        return await connection.ExecuteScalarAsync<long?>(new CommandDefinition(
+            "SELECT seq FROM batch_events WHERE batch_id = @batchId AND addition_id = @additionId", new { batchId, additionId }, cancellationToken: cancellationToken)) ?? 0;
     }
 
     /// <summary>Corrections of the given batches' additions, oldest first within each batch.</summary>
@@ -150,8 +150,8 @@ public sealed class BatchStore(IDatabase database)
         }
 
         await using var connection = await database.OpenAsync(cancellationToken);
-        var rows = await connection.QueryAsync<CorrectionRow>(
-            $"{SelectCorrection} WHERE {database.AnyOf("c.batch_id", "batchIds")} ORDER BY e.seq", new { batchIds = batchIds.ToArray() });
+        var rows = await connection.QueryAsync<CorrectionRow>(new CommandDefinition(
+            $"{SelectCorrection} WHERE {database.AnyOf("c.batch_id", "batchIds")} ORDER BY e.seq", new { batchIds = batchIds.ToArray() }, cancellationToken: cancellationToken));
         return [.. rows];
     }
 
@@ -163,8 +163,8 @@ public sealed class BatchStore(IDatabase database)
         }
 
         await using var connection = await database.OpenAsync(cancellationToken);
-        var rows = await connection.QueryAsync<AdditionRow>(
-            $"{SelectAddition} WHERE {database.AnyOf("batch_id", "batchIds")} ORDER BY batch_id, ordinal", new { batchIds = batchIds.ToArray() });
+        var rows = await connection.QueryAsync<AdditionRow>(new CommandDefinition(
+            $"{SelectAddition} WHERE {database.AnyOf("batch_id", "batchIds")} ORDER BY batch_id, ordinal", new { batchIds = batchIds.ToArray() }, cancellationToken: cancellationToken));
         return [.. rows];
     }
 
@@ -224,23 +224,23 @@ public sealed class BatchStore(IDatabase database)
                                        ORDER BY w.high_water_at, w.last_event_seq LIMIT 1)
             """;
         await using var connection = await database.OpenAsync(cancellationToken);
-        var rows = await connection.QueryAsync<BatchRow>($"""
+        var rows = await connection.QueryAsync<BatchRow>(new CommandDefinition($"""
             {SelectBatch}
             WHERE b.last_event_seq > @afterSeq
             {changedAfter}
               AND (@stationId IS NULL OR b.station_id = @stationId)
             ORDER BY b.last_event_seq
             LIMIT @limit
-            """, new { afterSeq, updatedAfter = updatedAfter is { } u ? TimeText.Format(u) : null, stationId, limit });
+            """, new { afterSeq, updatedAfter = updatedAfter is { } u ? TimeText.Format(u) : null, stationId, limit }, cancellationToken: cancellationToken));
         return [.. rows];
     }
 
     public async Task<IReadOnlyList<EventRow>> EventsAsync(string batchId, long afterSeq, CancellationToken cancellationToken)
     {
         await using var connection = await database.OpenAsync(cancellationToken);
-        var rows = await connection.QueryAsync<EventRow>(
+        var rows = await connection.QueryAsync<EventRow>(new CommandDefinition(
             "SELECT seq, batch_id, type, body, occurred_at FROM batch_events WHERE batch_id = @batchId AND seq > @afterSeq ORDER BY seq",
-            new { batchId, afterSeq });
+            new { batchId, afterSeq }, cancellationToken: cancellationToken));
         return [.. rows];
     }
 
@@ -249,14 +249,14 @@ public sealed class BatchStore(IDatabase database)
         string batchId, CancellationToken cancellationToken)
     {
         await using var connection = await database.OpenAsync(cancellationToken);
-        var events = await connection.QueryAsync<EventRow>("""
+        var events = await connection.QueryAsync<EventRow>(new CommandDefinition("""
             SELECT seq, batch_id, type, body, occurred_at, actor_key_id, station_id, addition_id, correction_id, prev_hash, hash
             FROM batch_events WHERE batch_id = @batchId ORDER BY seq
-            """, new { batchId });
-        var additions = await connection.QueryAsync<AdditionRow>($"{SelectAddition} WHERE batch_id = @batchId", new { batchId });
+            """, new { batchId }, cancellationToken: cancellationToken));
+        var additions = await connection.QueryAsync<AdditionRow>(new CommandDefinition($"{SelectAddition} WHERE batch_id = @batchId", new { batchId }, cancellationToken: cancellationToken));
         // Without the join: a correction whose event row was tampered with must still be found by its own id.
-        var corrections = await connection.QueryAsync<CorrectionRow>(
-            $"SELECT {CorrectionColumns} FROM addition_corrections c WHERE c.batch_id = @batchId", new { batchId });
+        var corrections = await connection.QueryAsync<CorrectionRow>(new CommandDefinition(
+            $"SELECT {CorrectionColumns} FROM addition_corrections c WHERE c.batch_id = @batchId", new { batchId }, cancellationToken: cancellationToken));
         return ([.. events], additions.ToDictionary(a => a.AdditionId, StringComparer.Ordinal),
             corrections.ToDictionary(c => c.CorrectionId, StringComparer.Ordinal));
     }
@@ -276,13 +276,13 @@ public sealed class BatchStore(IDatabase database)
         {
             if (database.Engine == PostgresDatabase.EngineName)
             {
-                var seq = await connection.ExecuteScalarAsync<long?>(PostgresWrite(write), PostgresWriteParameters(write, draft), transaction);
+                var seq = await connection.ExecuteScalarAsync<long?>(new CommandDefinition(PostgresWrite(write), PostgresWriteParameters(write, draft), transaction, cancellationToken: cancellationToken));
                 return seq is { } written ? new WriteOutcome(true, written) : WriteOutcome.Conflict;
             }
 
             // Taking the batch row first serialises writers of one batch; the loser sees no row and re-reads. Once the row
             // is ours no other event of this batch can be appended, so its latest hash comes in the same round trip.
-            var (claimed, prevHash) = await ClaimAsync(connection, transaction, write.BatchId, write.ExpectedVersion, write.At);
+            var (claimed, prevHash) = await ClaimAsync(connection, transaction, write.BatchId, write.ExpectedVersion, write.At, cancellationToken);
             if (!claimed)
             {
                 return WriteOutcome.Conflict;
@@ -290,19 +290,19 @@ public sealed class BatchStore(IDatabase database)
 
             if (write.Insert is not null)
             {
-                await connection.ExecuteAsync(write.Insert, write.Row, transaction);
+                await connection.ExecuteAsync(new CommandDefinition(write.Insert, write.Row, transaction, cancellationToken: cancellationToken));
             }
 
             if (write.Replan is { } replan)
             {
-                await connection.ExecuteAsync($"{InsertReplan}; UPDATE batches SET plan_revision = @replanRevision WHERE id = @replanBatchId", ReplanParameters(replan), transaction);
+                await connection.ExecuteAsync(new CommandDefinition($"{InsertReplan}; UPDATE batches SET plan_revision = @replanRevision WHERE id = @replanBatchId", ReplanParameters(replan), transaction, cancellationToken: cancellationToken));
             }
 
             if (write.Status is { } status)
             {
-                await connection.ExecuteAsync(
+                await connection.ExecuteAsync(new CommandDefinition(
                     "UPDATE batches SET status = @status, abort_reason = @abortReason WHERE id = @batchId",
-                    new { status = status.Name, abortReason = status.AbortReason, batchId = write.BatchId }, transaction);
+                    new { status = status.Name, abortReason = status.AbortReason, batchId = write.BatchId }, transaction, cancellationToken: cancellationToken));
             }
 
             var seqOnSqlite = await EventLog.AppendAndCommitAsync(
@@ -394,12 +394,12 @@ public sealed class BatchStore(IDatabase database)
     };
 
     private static async Task<(bool Claimed, string PrevHash)> ClaimAsync(
-        DbConnection connection, DbTransaction transaction, string batchId, long expectedVersion, DateTimeOffset at)
+        DbConnection connection, DbTransaction transaction, string batchId, long expectedVersion, DateTimeOffset at, CancellationToken cancellationToken)
     {
-        await using var reads = await connection.QueryMultipleAsync("""
+        await using var reads = await connection.QueryMultipleAsync(new CommandDefinition("""
             UPDATE batches SET version = version + 1, updated_at = @at WHERE id = @batchId AND version = @expectedVersion RETURNING version;
             SELECT hash FROM batch_events WHERE batch_id = @batchId ORDER BY seq DESC LIMIT 1
-            """, new { at = TimeText.Format(at), batchId, expectedVersion }, transaction);
+            """, new { at = TimeText.Format(at), batchId, expectedVersion }, transaction, cancellationToken: cancellationToken));
         var claimed = (await reads.ReadAsync<long>()).Any();
         return (claimed, await reads.ReadSingleOrDefaultAsync<string?>() ?? "");
     }
@@ -418,22 +418,22 @@ public sealed class BatchStore(IDatabase database)
         public (string Name, string AbortReason)? Status { get; init; }
     }
 
-    private static async Task<(long Id, long Revision)> RecipeRevisionAsync(DbConnection connection, DbTransaction transaction, NewBatch batch)
+    private static async Task<(long Id, long Revision)> RecipeRevisionAsync(DbConnection connection, DbTransaction transaction, NewBatch batch, CancellationToken cancellationToken)
     {
-        var latest = await connection.QuerySingleOrDefaultAsync<(long Id, long Revision, string ContentHash)?>(
+        var latest = await connection.QuerySingleOrDefaultAsync<(long Id, long Revision, string ContentHash)?>(new CommandDefinition(
             "SELECT id, CAST(revision AS BIGINT), content_hash FROM recipe_revisions WHERE name = @RecipeName ORDER BY revision DESC LIMIT 1",
-            new { batch.RecipeName }, transaction);
+            new { batch.RecipeName }, transaction, cancellationToken: cancellationToken));
         if (latest is { } same && same.ContentHash == batch.RecipeHash)
         {
             return (same.Id, same.Revision);
         }
 
         var revision = (latest?.Revision ?? 0) + 1;
-        var id = await connection.ExecuteScalarAsync<long>("""
+        var id = await connection.ExecuteScalarAsync<long>(new CommandDefinition("""
             INSERT INTO recipe_revisions (name, revision, content_hash, body, created_at)
             VALUES (@RecipeName, @revision, @RecipeHash, @RecipeBody, @at) RETURNING id
             """, new { batch.RecipeName, revision, batch.RecipeHash, batch.RecipeBody, at = TimeText.Format(batch.At) },
-            transaction);
+            transaction, cancellationToken: cancellationToken));
         return (id, revision);
     }
 }

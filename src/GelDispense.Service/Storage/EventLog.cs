@@ -30,22 +30,22 @@ public static class EventLog
         {
             var parameters = PostgresParameters(draft, addition, correction);
             parameters.Add("prevHash", prevHash);
-            return await connection.ExecuteScalarAsync<long>(
-                PostgresAppendAndCommit("prev AS (SELECT @prevHash AS hash)", "TRUE", ""), parameters, transaction);
+            return await connection.ExecuteScalarAsync<long>(new CommandDefinition(
+                PostgresAppendAndCommit("prev AS (SELECT @prevHash AS hash)", "TRUE", ""), parameters, transaction, cancellationToken: cancellationToken));
         }
 
-        var entry = entryAt(await connection.ExecuteScalarAsync<long>("""
+        var entry = entryAt(await connection.ExecuteScalarAsync<long>(new CommandDefinition("""
             UPDATE event_sequence SET last_seq = last_seq + 1,
                 high_water_at = MAX(high_water_at, (SELECT updated_at FROM batches WHERE id = @BatchId))
             WHERE id = 1 RETURNING last_seq
-            """, new { draft.BatchId }, transaction));
+            """, new { draft.BatchId }, transaction, cancellationToken: cancellationToken)));
         var hash = AuditChain.Link(prevHash, AuditChain.Canonical(entry, addition, correction));
-        await connection.ExecuteAsync("""
+        await connection.ExecuteAsync(new CommandDefinition("""
             UPDATE batches SET last_event_seq = @Seq, high_water_at = (SELECT high_water_at FROM event_sequence WHERE id = 1) WHERE id = @BatchId;
             INSERT INTO batch_events (seq, batch_id, type, body, occurred_at, actor_key_id, station_id, addition_id, correction_id, prev_hash, hash)
             VALUES (@Seq, @BatchId, @Type, @Body, @OccurredAt, @ActorKeyId, @StationId, @AdditionId, @CorrectionId, @prevHash, @hash)
             """, new { entry.Seq, entry.BatchId, entry.Type, entry.Body, entry.OccurredAt, entry.ActorKeyId, entry.StationId, entry.AdditionId, entry.CorrectionId, prevHash, hash },
-            transaction);
+            transaction, cancellationToken: cancellationToken));
         await transaction.CommitAsync(cancellationToken);
         return entry.Seq;
     }

@@ -15,20 +15,20 @@ public static class MigrationRunner
         await using var connection = await database.OpenRawAsync(cancellationToken);
         // One transaction for everything: DDL is transactional on both engines, so a failed script leaves no trace.
         await using var transaction = await connection.BeginTransactionAsync(cancellationToken);
-        await connection.ExecuteAsync(database.MigrationLockSql, transaction: transaction);
-        await connection.ExecuteAsync(
+        await connection.ExecuteAsync(new CommandDefinition(database.MigrationLockSql, transaction: transaction, cancellationToken: cancellationToken));
+        await connection.ExecuteAsync(new CommandDefinition(
             "CREATE TABLE IF NOT EXISTS schema_version (version INTEGER PRIMARY KEY, name TEXT NOT NULL, applied_at TEXT NOT NULL)",
-            transaction: transaction);
+            transaction: transaction, cancellationToken: cancellationToken));
         foreach (var (version, name, sql) in Scripts(database.Engine))
         {
-            var applied = await connection.ExecuteScalarAsync<long>(
-                "SELECT COUNT(*) FROM schema_version WHERE version = @version", new { version }, transaction);
+            var applied = await connection.ExecuteScalarAsync<long>(new CommandDefinition(
+                "SELECT COUNT(*) FROM schema_version WHERE version = @version", new { version }, transaction, cancellationToken: cancellationToken));
             if (applied == 0)
             {
-                await connection.ExecuteAsync(sql, transaction: transaction);
-                await connection.ExecuteAsync(
+                await connection.ExecuteAsync(new CommandDefinition(sql, transaction: transaction, cancellationToken: cancellationToken));
+                await connection.ExecuteAsync(new CommandDefinition(
                     "INSERT INTO schema_version (version, name, applied_at) VALUES (@version, @name, @at)",
-                    new { version, name, at = TimeText.Format(time.GetUtcNow()) }, transaction);
+                    new { version, name, at = TimeText.Format(time.GetUtcNow()) }, transaction, cancellationToken: cancellationToken));
             }
         }
 

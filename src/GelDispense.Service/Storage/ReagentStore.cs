@@ -15,21 +15,21 @@ public sealed class ReagentStore(IDatabase database)
     public async Task<IReadOnlyList<string>> ReagentBodiesAsync(CancellationToken cancellationToken)
     {
         await using var connection = await database.OpenAsync(cancellationToken);
-        return [.. await connection.QueryAsync<string>("SELECT body FROM reagents ORDER BY id")];
+        return [.. await connection.QueryAsync<string>(new CommandDefinition("SELECT body FROM reagents ORDER BY id", cancellationToken: cancellationToken))];
     }
 
     /// <summary>The stored reagents among <paramref name="ids"/>; ids without a stored reagent are left out.</summary>
     public async Task<IReadOnlyList<string>> ReagentBodiesAsync(IReadOnlyCollection<string> ids, CancellationToken cancellationToken)
     {
         await using var connection = await database.OpenAsync(cancellationToken);
-        return [.. await connection.QueryAsync<string>(
-            $"SELECT body FROM reagents WHERE {database.AnyOf("id", "ids")} ORDER BY id", new { ids = ids.ToArray() })];
+        return [.. await connection.QueryAsync<string>(new CommandDefinition(
+            $"SELECT body FROM reagents WHERE {database.AnyOf("id", "ids")} ORDER BY id", new { ids = ids.ToArray() }, cancellationToken: cancellationToken))];
     }
 
     public async Task<string?> ReagentBodyAsync(string id, CancellationToken cancellationToken)
     {
         await using var connection = await database.OpenAsync(cancellationToken);
-        return await connection.QuerySingleOrDefaultAsync<string>("SELECT body FROM reagents WHERE id = @id", new { id });
+        return await connection.QuerySingleOrDefaultAsync<string>(new CommandDefinition("SELECT body FROM reagents WHERE id = @id", new { id }, cancellationToken: cancellationToken));
     }
 
     /// <summary>Inserts a lot; false when the reagent already has a lot with this id.</summary>
@@ -41,8 +41,8 @@ public sealed class ReagentStore(IDatabase database)
     public async Task<IReadOnlyList<string>> LotBodiesAsync(string reagentId, CancellationToken cancellationToken)
     {
         await using var connection = await database.OpenAsync(cancellationToken);
-        return [.. await connection.QueryAsync<string>(
-            "SELECT body FROM reagent_lots WHERE reagent_id = @reagentId ORDER BY expires_on, lot_id", new { reagentId })];
+        return [.. await connection.QueryAsync<string>(new CommandDefinition(
+            "SELECT body FROM reagent_lots WHERE reagent_id = @reagentId ORDER BY expires_on, lot_id", new { reagentId }, cancellationToken: cancellationToken))];
     }
 
     private async Task<bool> TryInsertAsync(string sql, object parameters, CancellationToken cancellationToken)
@@ -51,7 +51,7 @@ public sealed class ReagentStore(IDatabase database)
         await using var connection = await database.OpenAsync(cancellationToken);
         try
         {
-            await connection.ExecuteAsync(sql, parameters);
+            await connection.ExecuteAsync(new CommandDefinition(sql, parameters, cancellationToken: cancellationToken));
             return true;
         }
         catch (DbException e) when (database.IsConflict(e))

@@ -11,7 +11,7 @@ public sealed class StorageHealthCheck(IDatabase database) : IHealthCheck
         try
         {
             await using var connection = await database.OpenAsync(cancellationToken);
-            await connection.ExecuteScalarAsync<long>("SELECT last_seq FROM event_sequence WHERE id = 1");
+            await connection.ExecuteScalarAsync<long>(new CommandDefinition("SELECT last_seq FROM event_sequence WHERE id = 1", cancellationToken: cancellationToken));
             return HealthCheckResult.Healthy($"{database.Engine} answers");
         }
         catch (Exception e) when (e is System.Data.Common.DbException or InvalidOperationException or TimeoutException)
