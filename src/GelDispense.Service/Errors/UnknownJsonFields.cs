@@ -35,8 +35,8 @@ public static class UnknownJsonFields
 
     /// <summary>
     /// The first field in <paramref name="json"/> that <paramref name="message"/> (or a message nested in it) does not
-    /// have, as an error at its path; null when every field is known, and for JSON that does not parse (the transcoder
-    /// reports that itself).
+    /// have, as an error at its path; null when every field is known, and for JSON that does not parse or is not valid
+    /// UTF-8 (the transcoder reports those itself).
     /// </summary>
     public static InputError? Find(ReadOnlySpan<byte> json, MessageDescriptor message, string path = "")
     {
@@ -45,8 +45,9 @@ public static class UnknownJsonFields
             var reader = new Utf8JsonReader(json);
             return reader.Read() && reader.TokenType == JsonTokenType.StartObject ? InObject(ref reader, message, path) : null;
         }
-        catch (JsonException)
+        catch (Exception e) when (e is JsonException or InvalidOperationException)
         {
+            // Not JSON, or a name that is not valid UTF-8 (GetString throws InvalidOperationException for it).
             return null;
         }
     }

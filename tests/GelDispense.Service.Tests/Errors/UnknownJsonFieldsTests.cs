@@ -41,6 +41,49 @@ public sealed class UnknownJsonFieldsTests(ApiHosts hosts)
         Assert.Null(UnknownJsonFields.Find(Utf8("""{"recipe":{"name":}}"""), CreatePlanRequest.Descriptor));
     }
 
+    [Fact]
+    public void Every_truncation_and_thousands_of_byte_flips_of_a_real_body_are_answered_without_an_exception()
+    {
+        // Bad input never crashes the edge: whatever the bytes, the walk ends with an answer (an error or none).
+        var body = Utf8("{\"recipe\":" + Demo.DensityRecipe + ",\"balance\":" + Demo.Balance + ",\"options\":{\"stepLimitPctByReagent\":{\"water\":1}}}");
+        var random = new Random(20261202);
+        var answered = 0;
+        for (var length = 0; length <= body.Length; length++)
+        {
+            _ = UnknownJsonFields.Find(body.AsSpan(0, length), CreatePlanRequest.Descriptor);
+            answered++;
+        }
+
+        for (var trial = 0; trial < 5000; trial++)
+        {
+            var mutated = (byte[])body.Clone();
+            for (var flips = random.Next(1, 4); flips > 0; flips--)
+            {
+                mutated[random.Next(mutated.Length)] = (byte)random.Next(256);
+            }
+
+            _ = UnknownJsonFields.Find(mutated, CreatePlanRequest.Descriptor);
+            answered++;
+        }
+
+        Assert.Equal(body.Length + 1 + 5000, answered);
+        Assert.Null(UnknownJsonFields.Find(body, CreatePlanRequest.Descriptor));
+    }
+
+    [Theory, SqliteEngine, PostgresEngine]
+    public async Task A_field_name_that_is_not_UTF_8_is_a_400_with_a_reason_not_a_500(string engine)
+    {
+        var host = await hosts.ForAsync(engine);
+        using var body = new ByteArrayContent([.. "{\"rec"u8, 0xA1, .. "ipe\":{}}"u8]);
+        body.Headers.ContentType = new System.Net.Http.Headers.MediaTypeHeaderValue("application/json");
+
+        using var response = await host.CreateClient().PostAsync("/v1/plans", body);
+        var problem = JsonNode.Parse(await response.Content.ReadAsStringAsync())!;
+
+        Assert.Equal(400, (int)response.StatusCode);
+        Assert.False(string.IsNullOrWhiteSpace((string?)problem["errors"]?[0]?["reason"]));
+    }
+
     [Theory, SqliteEngine, PostgresEngine]
     public async Task A_misspelt_lot_id_is_refused_and_nothing_is_recorded(string engine)
     {
