@@ -61,5 +61,45 @@ public sealed class MalformedBodyTests(ApiHosts hosts)
         }
     }
 
+    [Theory, SqliteEngine, PostgresEngine]
+    public async Task Seeded_byte_mutations_of_valid_bodies_never_get_a_5xx_and_every_refusal_has_a_reason(string engine)
+    {
+        var host = await hosts.ForAsync(engine);
+        var client = host.CreateClient();
+        var batch = await Demo.StartBatchAsync(client, stationId: "bench-fuzz");
+        var valid = new (string Route, string Body)[]
+        {
+            ("/v1/plans", $$"""{"recipe":{{Demo.DensityRecipe}},"balance":{{Demo.Balance}}}"""),
+            ("/v1/batches", $$"""{"stationId":"bench-fuzz","recipe":{{Demo.Recipe}},"balance":{{Demo.Balance}}}"""),
+            ($"/v1/batches/{batch["id"]}/additions", Demo.Addition("fz1", 0, 20.8)),
+            ("/v1/reagents", """{"id":"ipa-fuzz","name":"2-propanol","formula":"C3H8O","densityGPerMl":0.7855,"role":"solvent"}"""),
+        };
+        var random = new Random(4711);
+        foreach (var (route, text) in valid)
+        {
+            var bytes = System.Text.Encoding.UTF8.GetBytes(text);
+            for (var trial = 0; trial < 150; trial++)
+            {
+                var mutated = (byte[])bytes.Clone();
+                for (var flips = random.Next(1, 4); flips > 0; flips--)
+                {
+                    mutated[random.Next(mutated.Length)] = (byte)random.Next(32, 127);
+                }
+
+                using var content = new ByteArrayContent(mutated);
+                content.Headers.ContentType = new System.Net.Http.Headers.MediaTypeHeaderValue("application/json");
+                using var response = await client.PostAsync(route, content);
+                var answer = await response.Content.ReadAsStringAsync();
+                var status = (int)response.StatusCode;
+
+                Assert.True(status < 500, $"POST {route} with {Clip(System.Text.Encoding.UTF8.GetString(mutated))} gave {status}: {Clip(answer)}");
+                if (status >= 400)
+                {
+                    Assert.False(string.IsNullOrWhiteSpace((string?)JsonNode.Parse(answer)?["errors"]?[0]?["reason"]), $"POST {route} gave {status} without a reason: {Clip(answer)}");
+                }
+            }
+        }
+    }
+
     private static string Clip(string text) => text.Length <= 120 ? text : text[..120] + "…";
 }
