@@ -1,5 +1,6 @@
 using System.Security.Cryptography;
 using GelDispense.Contracts.V1;
+using GelDispense.Service.Errors;
 using Microsoft.AspNetCore.Grpc.JsonTranscoding;
 using Microsoft.Extensions.Caching.Memory;
 
@@ -48,7 +49,7 @@ public sealed class RestAnswerMemo : IDisposable
             return;
         }
 
-        var key = await KeyAsync(context.Request, method);
+        var key = Key(context.Request, method);
         if (_answers.TryGetValue(key, out Answer? answer) && answer is not null)
         {
             var response = context.Response;
@@ -99,18 +100,6 @@ public sealed class RestAnswerMemo : IDisposable
     }
 
     /// <summary>The method, the query and a SHA-256 of the body: two calls with the same key ask for the same answer.</summary>
-    private static async Task<string> KeyAsync(HttpRequest request, string method)
-    {
-        request.EnableBuffering();
-        using var hash = IncrementalHash.CreateHash(HashAlgorithmName.SHA256);
-        var buffer = new byte[4096];
-        int read;
-        while ((read = await request.Body.ReadAsync(buffer, request.HttpContext.RequestAborted)) > 0)
-        {
-            hash.AppendData(buffer, 0, read);
-        }
-
-        request.Body.Position = 0;
-        return string.Concat(method, request.QueryString.Value, "#", Convert.ToHexString(hash.GetHashAndReset()));
-    }
+    private static string Key(HttpRequest request, string method) =>
+        string.Concat(method, request.QueryString.Value, "#", Convert.ToHexString(SHA256.HashData(RestProblemMiddleware.BufferedBody(request).Span)));
 }

@@ -14,13 +14,13 @@ public static class RequestBodyDiagnosis
 {
     public static InputError? Explain(HttpContext context)
     {
-        if (context.Request.Body is not MemoryStream { Length: > 0 } body
+        if (RestProblemMiddleware.BufferedBody(context.Request) is not { Length: > 0 } body
             || context.GetEndpoint()?.Metadata.GetMetadata<GrpcJsonTranscodingMetadata>() is not { } transcoding)
         {
             return null;
         }
 
-        var json = System.Text.Encoding.UTF8.GetString(body.ToArray());
+        var json = System.Text.Encoding.UTF8.GetString(body.Span);
         try
         {
             using var _ = JsonDocument.Parse(json);

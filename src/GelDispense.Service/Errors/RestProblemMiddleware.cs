@@ -15,6 +15,12 @@ public sealed class RestProblemMiddleware(RequestDelegate next, RequestLimits li
     public static bool IsGrpc(HttpRequest request) =>
         request.ContentType?.StartsWith("application/grpc", StringComparison.OrdinalIgnoreCase) == true;
 
+    /// <summary>The body of a REST call as this edge buffered it, without a copy; empty when it had none.</summary>
+    public static ReadOnlyMemory<byte> BufferedBody(HttpRequest request) =>
+        request.Body is MemoryStream buffered && buffered.TryGetBuffer(out var bytes)
+            ? new ReadOnlyMemory<byte>(bytes.Array, bytes.Offset, (int)buffered.Length)
+            : ReadOnlyMemory<byte>.Empty;
+
     public async Task InvokeAsync(HttpContext context)
     {
         if (IsGrpc(context.Request) || !context.Request.Path.StartsWithSegments("/v1"))

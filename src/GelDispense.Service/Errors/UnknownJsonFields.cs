@@ -16,21 +16,21 @@ public static class UnknownJsonFields
 {
     private static readonly ConcurrentDictionary<MessageDescriptor, Dictionary<string, FieldDescriptor>> FieldsByName = new();
 
-    public static async Task InvokeAsync(HttpContext context, RequestDelegate next)
+    public static Task InvokeAsync(HttpContext context, RequestDelegate next)
     {
         if (context.GetEndpoint()?.Metadata.GetMetadata<GrpcJsonTranscodingMetadata>() is { } transcoding
             && BodyMessage(transcoding) is { } body
-            && await ReadBodyAsync(context.Request) is { Length: > 0 } json
-            && Find(json, body.Message, body.Path) is { } unknown)
+            && RestProblemMiddleware.BufferedBody(context.Request) is { Length: > 0 } json
+            && Find(json.Span, body.Message, body.Path) is { } unknown)
         {
             // Rendered by the REST edge (RestProblemMiddleware), as a handler's refusal is.
             var problem = new ApiProblem(Grpc.Core.StatusCode.InvalidArgument, "The request has invalid fields.", [unknown]);
             context.Items[ApiProblem.ItemKey] = problem;
             context.Response.StatusCode = problem.HttpStatus;
-            return;
+            return Task.CompletedTask;
         }
 
-        await next(context);
+        return next(context);
     }
 
     /// <summary>
@@ -130,14 +130,5 @@ public static class UnknownJsonFields
             "*" => (request, ""),
             var name => request.FindFieldByName(name) is { FieldType: FieldType.Message } field ? (field.MessageType, field.JsonName) : null,
         };
-    }
-
-    private static async Task<byte[]> ReadBodyAsync(HttpRequest request)
-    {
-        request.EnableBuffering();
-        using var copy = new MemoryStream();
-        await request.Body.CopyToAsync(copy, request.HttpContext.RequestAborted);
-        request.Body.Position = 0;
-        return copy.ToArray();
     }
 }
