@@ -6,21 +6,22 @@ namespace GelDispense.LoadHarness;
 
 /// <summary>
 /// What one run does. Every option is bounded so a run stays short and its load small: at most 64 clients or
-/// stations, 60 s per scenario (split into interleaved rounds) and a cap on the requests of each scenario, always
-/// against the in-process service and a database on 127.0.0.1.
+/// stations, 60 s per scenario (split into interleaved rounds), a capped warm-up and a cap on the requests of each
+/// scenario, always against the in-process service and a database on 127.0.0.1. A warm-up pass runs each scenario
+/// for <c>Warmup</c>; passes repeat until the JIT has settled or <c>MaxWarmup</c> has run.
 /// </summary>
 public sealed record HarnessOptions(
-    int Clients, TimeSpan Duration, int Rounds, TimeSpan Warmup, int MaxRequests, bool Additions, bool AdditionsOnly, bool Ingest, int Stations,
-    string? Postgres)
+    int Clients, TimeSpan Duration, int Rounds, TimeSpan Warmup, TimeSpan MaxWarmup, int MaxRequests, bool Additions, bool AdditionsOnly, bool Ingest,
+    int Stations, string? Postgres)
 {
     public const string Usage =
-        "usage: GelDispense.LoadHarness [--clients 1..64 (8)] [--seconds 1..60 (8)] [--rounds 1..20 (4)] [--warmup-seconds 0..10 (1)] " +
+        "usage: GelDispense.LoadHarness [--clients 1..64 (8)] [--seconds 1..60 (8)] [--rounds 1..20 (4)] [--warmup-seconds 0..10 (2)] [--max-warmup-seconds 0..600 (180)] " +
         "[--max-requests 1..1000000 (500000)] [--no-additions | --additions-only | --ingest [--stations 1..64 (50)] " +
         "[--postgres \"Host=127.0.0.1;...\" (default: a throwaway local cluster)]]";
 
     public static HarnessOptions Parse(IReadOnlyList<string> args)
     {
-        var options = new HarnessOptions(8, TimeSpan.FromSeconds(8), 4, TimeSpan.FromSeconds(1), 500_000, Additions: true, AdditionsOnly: false,
+        var options = new HarnessOptions(8, TimeSpan.FromSeconds(8), 4, TimeSpan.FromSeconds(2), TimeSpan.FromSeconds(180), 500_000, Additions: true, AdditionsOnly: false,
             Ingest: false, Stations: 50, Postgres: null);
         for (var i = 0; i < args.Count; i++)
         {
@@ -31,6 +32,7 @@ public sealed record HarnessOptions(
                 "--seconds" => options with { Duration = TimeSpan.FromSeconds(Number(name, Value(args, ref i), 1, 60)) },
                 "--rounds" => options with { Rounds = Number(name, Value(args, ref i), 1, 20) },
                 "--warmup-seconds" => options with { Warmup = TimeSpan.FromSeconds(Number(name, Value(args, ref i), 0, 10)) },
+                "--max-warmup-seconds" => options with { MaxWarmup = TimeSpan.FromSeconds(Number(name, Value(args, ref i), 0, 600)) },
                 "--max-requests" => options with { MaxRequests = Number(name, Value(args, ref i), 1, 1_000_000) },
                 "--no-additions" => options with { Additions = false, AdditionsOnly = false },
                 "--additions-only" => options with { Additions = true, AdditionsOnly = true },

@@ -4,10 +4,11 @@ namespace GelDispense.LoadHarness;
 
 /// <summary>
 /// What one scenario measured: completed calls, failures, wall time, the CPU time of this process (clients and
-/// service together) and every call's latency.
+/// service together), the methods the JIT compiled meanwhile (near zero once warm) and every call's latency.
 /// </summary>
 public sealed record LoadResult(
-    string Scenario, string Protocol, int Clients, int Requests, int Errors, TimeSpan Elapsed, TimeSpan ProcessCpu, long[] SortedLatencyTicks, string? FirstError)
+    string Scenario, string Protocol, int Clients, int Requests, int Errors, TimeSpan Elapsed, TimeSpan ProcessCpu, long JitCompiled,
+    long[] SortedLatencyTicks, string? FirstError)
 {
     public double RequestsPerSecond => Requests / Elapsed.TotalSeconds;
 

@@ -28,7 +28,7 @@ public static class Program
 #endif
         Console.WriteLine($"GelDispense load harness: .NET {Environment.Version}, {Environment.ProcessorCount} logical cores, " +
             $"{(options.Ingest ? $"{options.Stations} stations" : $"{options.Clients} clients")}, {options.Duration.TotalSeconds:0} s per scenario in {options.Rounds} interleaved rounds after " +
-            $"{options.Warmup.TotalSeconds:0} s warm-up, at most {options.MaxRequests} requests per scenario; service in process on 127.0.0.1 " +
+            $"warm-up passes of {options.Warmup.TotalSeconds:0} s per scenario until the JIT settles (at most {options.MaxWarmup.TotalSeconds:0} s), at most {options.MaxRequests} requests per scenario; service in process on 127.0.0.1 " +
             $"with {(options.Ingest ? "PostgreSQL" : "SQLite in a temp dir")}; load average before: {LoadAverage()}.");
         var workload = DemoWorkload.Load();
         if (options.Ingest)
