@@ -86,6 +86,7 @@ public static class LoadRunner
         var issued = 0;
         var cpuBefore = Process.GetCurrentProcess().TotalProcessorTime;
         var compiledBefore = JitInfo.GetCompiledMethodCount();
+        var databaseCpuBefore = PostgresCpu.Total();
         var clock = Stopwatch.StartNew();
         var latencies = await Task.WhenAll(clients.Select(async client =>
         {
@@ -108,7 +109,7 @@ public static class LoadRunner
             return mine;
         }));
         result.Finish(latencies.SelectMany(l => l), clock.Elapsed, Process.GetCurrentProcess().TotalProcessorTime - cpuBefore,
-            JitInfo.GetCompiledMethodCount() - compiledBefore);
+            PostgresCpu.Total() - databaseCpuBefore, JitInfo.GetCompiledMethodCount() - compiledBefore);
         return result;
     }
 
@@ -120,6 +121,7 @@ public static class LoadRunner
         private string? _firstError;
         private TimeSpan _elapsed;
         private TimeSpan _cpu;
+        private TimeSpan _databaseCpu;
         private long _jitCompiled;
 
         public void Fail(string message)
@@ -128,17 +130,18 @@ public static class LoadRunner
             Interlocked.CompareExchange(ref _firstError, message, null);
         }
 
-        public void Finish(IEnumerable<long> latencyTicks, TimeSpan elapsed, TimeSpan cpu, long jitCompiled)
+        public void Finish(IEnumerable<long> latencyTicks, TimeSpan elapsed, TimeSpan cpu, TimeSpan databaseCpu, long jitCompiled)
         {
             _latencyTicks.AddRange(latencyTicks);
             _elapsed += elapsed;
             _cpu += cpu;
+            _databaseCpu += databaseCpu;
             _jitCompiled += jitCompiled;
         }
 
         public void Add(Slice other)
         {
-            Finish(other._latencyTicks, other._elapsed, other._cpu, other._jitCompiled);
+            Finish(other._latencyTicks, other._elapsed, other._cpu, other._databaseCpu, other._jitCompiled);
             _errors += other._errors;
             _firstError ??= other._firstError;
         }
@@ -146,7 +149,7 @@ public static class LoadRunner
         public LoadResult Result(Scenario scenario)
         {
             long[] sorted = [.. _latencyTicks.Order()];
-            return new LoadResult(scenario.Name, scenario.Protocol, scenario.Clients, sorted.Length, _errors, _elapsed, _cpu, _jitCompiled, sorted, _firstError);
+            return new LoadResult(scenario.Name, scenario.Protocol, scenario.Clients, sorted.Length, _errors, _elapsed, _cpu, _databaseCpu, _jitCompiled, sorted, _firstError);
         }
     }
 }

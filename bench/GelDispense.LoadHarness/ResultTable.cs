@@ -24,8 +24,8 @@ public static class ResultTable
     public static string Format(IReadOnlyList<LoadResult> results)
     {
         var table = new StringBuilder()
-            .AppendLine("| scenario | protocol | clients | requests | errors | req/s | p50 ms | p99 ms | CPU ms/req | JIT methods | vs baseline req/s | vs baseline p50 |")
-            .AppendLine("|---|---|---:|---:|---:|---:|---:|---:|---:|---:|---:|---:|");
+            .AppendLine("| scenario | protocol | clients | requests | errors | req/s | p50 ms | p99 ms | CPU ms/req | PostgreSQL CPU ms/req | JIT methods | vs baseline req/s | vs baseline p50 |")
+            .AppendLine("|---|---|---:|---:|---:|---:|---:|---:|---:|---:|---:|---:|---:|");
         foreach (var r in results)
         {
             var baseline = Baseline(r, results);
@@ -33,7 +33,7 @@ public static class ResultTable
             var latencyRatio = baseline is null ? "" : F("0.00", r.PercentileMs(0.50) / baseline.PercentileMs(0.50));
             table.AppendLine(CultureInfo.InvariantCulture,
                 $"| {r.Scenario} | {r.Protocol} | {r.Clients} | {r.Requests} | {r.Errors} | {F("0", r.RequestsPerSecond)} | " +
-                $"{F("0.00", r.PercentileMs(0.50))} | {F("0.00", r.PercentileMs(0.99))} | {F("0.000", r.CpuMsPerRequest)} | {r.JitCompiled} | {throughputRatio} | {latencyRatio} |");
+                $"{F("0.00", r.PercentileMs(0.50))} | {F("0.00", r.PercentileMs(0.99))} | {F("0.000", r.CpuMsPerRequest)} | {(r.DatabaseCpu > TimeSpan.Zero ? F("0.000", r.DatabaseCpuMsPerRequest) : "")} | {r.JitCompiled} | {throughputRatio} | {latencyRatio} |");
         }
 
         return table.ToString();
