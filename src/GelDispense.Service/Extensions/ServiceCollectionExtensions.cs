@@ -41,6 +41,8 @@ public static class ServiceCollectionExtensions
         services.AddSingleton<PlanHistory>();
         services.AddSingleton<AuditVerifier>();
         services.AddScoped<RequestLog>();
-        return services;
+
+        // Last: the health, reflection and Swagger registrations call AddGrpc again, which would bring the default binder back.
+        return services.AddParseCheckedServiceMethods();
     }
 }
