@@ -1,4 +1,7 @@
+using Dapper;
 using GelDispense.Contracts.V1;
+using Google.Protobuf;
+using GelDispense.Service.Batches;
 using GelDispense.Service.Tests.Infrastructure;
 using Grpc.Core;
 using Grpc.Net.Client;
@@ -39,6 +42,28 @@ public sealed class AdditionRecorderTests(ApiHosts hosts)
         Assert.Equal(1 + clients, batch.Version);
         var events = await new BatchService.BatchServiceClient(host.Channel()).GetAsMadeAsync(new GetAsMadeRequest { BatchId = id });
         Assert.Equal(3, events.StepsDone);
+    }
+
+    [Theory, SqliteEngine, PostgresEngine]
+    public async Task An_addition_keeps_its_answer_in_under_half_the_text_of_the_plain_base64_form_and_a_replay_returns_that_answer(string engine)
+    {
+        var host = await hosts.ForAsync(engine);
+        var grpc = new BatchService.BatchServiceClient(host.Channel());
+        var batch = await grpc.CreateBatchAsync(Corrections.CreateRequest("bench-deflate"));
+        var addition = Corrections.Add(batch, "d1", 0, batch.Steps[0].TargetReadingG);
+
+        var first = await grpc.RecordAdditionAsync(addition);
+        var replay = await grpc.RecordAdditionAsync(addition);
+
+        await using var connection = await RawDatabase.OpenAsync(host);
+        var stored = await connection.QuerySingleAsync<string>(
+            "SELECT response FROM additions WHERE batch_id = @id AND addition_id = 'd1'", new { id = batch.Id });
+        Assert.StartsWith(StoredResponse.DeflatedPrefix, stored, StringComparison.Ordinal);
+        var plain = Convert.ToBase64String(first.ToByteArray()).Length;
+        Assert.True(stored.Length * 2 < plain, $"stored {stored.Length} characters where the plain base64 form has {plain}");
+        Assert.True(replay.Replayed);
+        replay.Replayed = false;
+        Assert.Equal(first, replay);
     }
 
     [Theory, SqliteEngine, PostgresEngine]
