@@ -3,6 +3,7 @@ using GelDispense.Service.Tests.Infrastructure;
 using Google.Protobuf;
 using Google.Rpc;
 using Grpc.Core;
+using Grpc.Reflection.V1Alpha;
 
 namespace GelDispense.Service.Tests.Errors;
 
@@ -58,6 +59,22 @@ public sealed class ParseCheckedServiceMethodsTests(ApiHosts hosts)
         var refused = await Assert.ThrowsAsync<RpcException>(() => CallAsync(host, "PlanService", "CreatePlan", [0xFF, 0xFF], key: false));
 
         Assert.Equal(StatusCode.Unauthenticated, refused.StatusCode);
+    }
+
+    [Theory, SqliteEngine]
+    public async Task The_duplex_reflection_service_bound_the_same_way_lists_every_service(string engine)
+    {
+        var host = await hosts.ForAsync(engine);
+        using var call = new ServerReflection.ServerReflectionClient(host.Channel()).ServerReflectionInfo();
+
+        await call.RequestStream.WriteAsync(new ServerReflectionRequest { ListServices = "" });
+        await call.RequestStream.CompleteAsync();
+        Assert.True(await call.ResponseStream.MoveNext(CancellationToken.None));
+
+        var services = call.ResponseStream.Current.ListServicesResponse.Service.Select(s => s.Name).ToList();
+        Assert.Contains("geldispense.v1.BatchService", services);
+        Assert.Contains("geldispense.v1.PlanService", services);
+        Assert.Contains("grpc.health.v1.Health", services);
     }
 
     private static Method<byte[], byte[]> Method(MethodType type, string service, string name) =>
