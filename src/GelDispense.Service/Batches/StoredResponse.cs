@@ -7,9 +7,9 @@ namespace GelDispense.Service.Batches;
 /// <summary>
 /// How an addition's (or a correction's) response is kept for replays: its protobuf bytes, deflated, in base64 after a
 /// <see cref="DeflatedPrefix"/>. The response repeats the handling cautions of every remaining step, so it deflates
-/// to a fraction of its size; left to the database, PostgreSQL compressed the 10–12 KB text itself with pglz on every
-/// addition, a larger share of its work than any other single function. Rows written by earlier versions hold plain
-/// base64 protobuf or protobuf JSON, and still read.
+/// to well under half its base64 size; left to the database, PostgreSQL compressed the 10–12 KB text itself with pglz on
+/// every addition, about a tenth of its CPU (docs/performance.md). Rows written by earlier versions hold plain base64
+/// protobuf or protobuf JSON, and still read.
 /// </summary>
 public static class StoredResponse
 {
