@@ -1,4 +1,5 @@
 using GelDispense.Chemistry.Errors;
+using Google.Protobuf;
 using Grpc.Core;
 using Grpc.Core.Interceptors;
 
@@ -7,7 +8,8 @@ namespace GelDispense.Service.Errors;
 /// <summary>
 /// Turns every exception out of a handler into one <see cref="ApiProblem"/>: typed input errors become
 /// INVALID_ARGUMENT with field violations, <see cref="ApiException"/> keeps its code, anything else is logged
-/// and reported as INTERNAL without internals. Runs for native gRPC and for transcoded REST calls alike.
+/// and reported as INTERNAL without internals. Runs for native gRPC and for transcoded REST calls alike, and first
+/// refuses a request with U+0000 in any text field.
 /// </summary>
 public sealed class ErrorMappingInterceptor(ILogger<ErrorMappingInterceptor> logger) : Interceptor
 {
@@ -16,6 +18,7 @@ public sealed class ErrorMappingInterceptor(ILogger<ErrorMappingInterceptor> log
     {
         try
         {
+            RefuseNulCharacters(request);
             return await continuation(request, context);
         }
         catch (Exception e) when (e is not RpcException)
@@ -30,11 +33,21 @@ public sealed class ErrorMappingInterceptor(ILogger<ErrorMappingInterceptor> log
     {
         try
         {
+            RefuseNulCharacters(request);
             await continuation(request, responseStream, context);
         }
         catch (Exception e) when (e is not RpcException)
         {
             throw Translate(e, context);
+        }
+    }
+
+    /// <summary>Text with U+0000 is refused here, for every method and both protocols (see <see cref="NulCharacters"/>).</summary>
+    private static void RefuseNulCharacters(object request)
+    {
+        if (request is IMessage message && NulCharacters.Find(message) is { Count: > 0 } errors)
+        {
+            throw new InvalidInputException(errors);
         }
     }
 

@@ -1,4 +1,5 @@
 using GelDispense.Contracts.V1;
+using GelDispense.Service.Security;
 using GelDispense.Service.Tests.Infrastructure;
 using Google.Protobuf;
 using Google.Rpc;
@@ -75,6 +76,54 @@ public sealed class ParseCheckedServiceMethodsTests(ApiHosts hosts)
         Assert.Contains("geldispense.v1.BatchService", services);
         Assert.Contains("geldispense.v1.PlanService", services);
         Assert.Contains("grpc.health.v1.Health", services);
+    }
+
+    [Theory, SqliteEngine, PostgresEngine]
+    public async Task Seeded_byte_mutations_of_valid_requests_never_get_unknown_or_internal_and_every_invalid_argument_names_a_reason(string engine)
+    {
+        var host = await hosts.ForAsync(engine);
+        var batch = await new BatchService.BatchServiceClient(host.Channel()).CreateBatchAsync(Corrections.CreateRequest("bench-gfuzz"));
+        var valid = new (string Service, string Method, IMessage Request)[]
+        {
+            ("PlanService", "CreatePlan", JsonParser.Default.Parse<CreatePlanRequest>($$"""{"recipe":{{Demo.DensityRecipe}},"balance":{{Demo.Balance}}}""")),
+            ("CompositionService", "EvaluateComposition", JsonParser.Default.Parse<EvaluateCompositionRequest>($$"""{"recipe":{{Demo.DensityRecipe}}}""")),
+            ("BatchService", "CreateBatch", Corrections.CreateRequest("bench-gfuzz")),
+            ("BatchService", "RecordAddition", Corrections.Add(batch, "gf1", 0, batch.Steps[0].TargetReadingG)),
+            ("ReagentService", "CreateReagent", JsonParser.Default.Parse<CreateReagentRequest>(
+                """{"reagent":{"id":"ipa-gfuzz","name":"2-propanol","formula":"C3H8O","densityGPerMl":0.7855,"role":"solvent"}}""")),
+        };
+        var random = new Random(2718);
+        foreach (var (service, method, request) in valid)
+        {
+            // A key of its own per method: 120 calls stay inside one key's burst, and the shared admin key's bucket is left alone.
+            var channel = host.Channel(await host.IssueKeyAsync(Roles.Admin));
+            var bytes = request.ToByteArray();
+            for (var trial = 0; trial < 120; trial++)
+            {
+                var mutated = trial % 10 == 9 ? bytes[..random.Next(bytes.Length)] : (byte[])bytes.Clone();
+                for (var flips = trial % 10 == 9 ? 0 : random.Next(1, 4); flips > 0; flips--)
+                {
+                    mutated[random.Next(mutated.Length)] = (byte)random.Next(256);
+                }
+
+                var status = StatusCode.OK;
+                var reason = "";
+                try
+                {
+                    await channel.CreateCallInvoker().AsyncUnaryCall(Method(MethodType.Unary, service, method), null, new CallOptions(), mutated).ResponseAsync;
+                }
+                catch (RpcException e)
+                {
+                    status = e.StatusCode;
+                    reason = e.GetRpcStatus()?.GetDetail<BadRequest>()?.FieldViolations.FirstOrDefault()?.Reason ?? "";
+                }
+
+                var what = $"{service}/{method} with {Convert.ToHexString(mutated)[..Math.Min(80, mutated.Length * 2)]}…";
+                Assert.True(status is not (StatusCode.Unknown or StatusCode.Internal or StatusCode.DataLoss or StatusCode.Unimplemented or StatusCode.ResourceExhausted),
+                    $"{what} gave {status}");
+                Assert.True(status != StatusCode.InvalidArgument || reason.Length > 0, $"{what} gave INVALID_ARGUMENT without a reason");
+            }
+        }
     }
 
     private static Method<byte[], byte[]> Method(MethodType type, string service, string name) =>
