@@ -20,9 +20,64 @@ public static class NulCharacters
 
     public static IReadOnlyList<InputError> Find(IMessage request)
     {
+        if (!HasNul(request))
+        {
+            return [];
+        }
+
+        // Rare: walk again, this time building each field's path, to name every offending field.
         List<InputError>? errors = null;
         Walk(request, "", ref errors);
         return errors ?? (IReadOnlyList<InputError>)[];
+    }
+
+    /// <summary>The check every call pays: no paths, no allocation.</summary>
+    private static bool HasNul(object? value) => value switch
+    {
+        string text => text.Contains('\0', StringComparison.Ordinal),
+        IMessage message => HasNulInFields(message),
+        IDictionary map => HasNulInEntries(map),
+        IList list => HasNulInItems(list),
+        _ => false,
+    };
+
+    private static bool HasNulInFields(IMessage message)
+    {
+        foreach (var field in TextBearing.GetOrAdd(message.Descriptor, FieldsToWalk))
+        {
+            if (HasNul(field.Accessor.GetValue(message)))
+            {
+                return true;
+            }
+        }
+
+        return false;
+    }
+
+    private static bool HasNulInEntries(IDictionary map)
+    {
+        foreach (DictionaryEntry entry in map)
+        {
+            if (HasNul(entry.Key) || HasNul(entry.Value))
+            {
+                return true;
+            }
+        }
+
+        return false;
+    }
+
+    private static bool HasNulInItems(IList list)
+    {
+        for (var i = 0; i < list.Count; i++)
+        {
+            if (HasNul(list[i]))
+            {
+                return true;
+            }
+        }
+
+        return false;
     }
 
     private static void Walk(IMessage message, string path, ref List<InputError>? errors)
