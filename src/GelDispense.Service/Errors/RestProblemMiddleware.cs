@@ -1,3 +1,4 @@
+using System.Buffers;
 using System.Text.Json;
 using GelDispense.Chemistry.Errors;
 using GelDispense.Service.Extensions;
@@ -35,7 +36,7 @@ public sealed class RestProblemMiddleware(RequestDelegate next, RequestLimits li
         }
 
         var original = context.Response.Body;
-        using var buffer = new MemoryStream();
+        using var buffer = BufferStreams.Get("rest-answer");
         context.Response.Body = buffer;
         try
         {
@@ -74,22 +75,29 @@ public sealed class RestProblemMiddleware(RequestDelegate next, RequestLimits li
             return false;
         }
 
-        var copy = new MemoryStream();
-        var chunk = new byte[16 * 1024];
-        int read;
-        while ((read = await request.Body.ReadAsync(chunk, context.RequestAborted)) > 0)
+        var copy = BufferStreams.Get("rest-request", request.ContentLength ?? 0);
+        context.Response.RegisterForDispose(copy);
+        var chunk = ArrayPool<byte>.Shared.Rent(16 * 1024);
+        try
         {
-            copy.Write(chunk, 0, read);
-            if (copy.Length > max)
+            int read;
+            while ((read = await request.Body.ReadAsync(chunk, context.RequestAborted)) > 0)
             {
-                await WriteTooLargeAsync(context, $"more than {max}", max);
-                return false;
+                copy.Write(chunk, 0, read);
+                if (copy.Length > max)
+                {
+                    await WriteTooLargeAsync(context, $"more than {max}", max);
+                    return false;
+                }
             }
+        }
+        finally
+        {
+            ArrayPool<byte>.Shared.Return(chunk);
         }
 
         copy.Position = 0;
         request.Body = copy;
-        context.Response.RegisterForDispose(copy);
         return true;
     }
 
