@@ -70,7 +70,7 @@ public sealed class RestAnswerMemo : IDisposable
     {
         var response = context.Response;
         var original = response.Body;
-        using var captured = BufferStreams.Get("rest-answer-memo");
+        using var captured = new MemoryStream();
         response.Body = captured;
         // The REST edge buffers the answer, so the response starts after this method has decided whether to keep it.
         var stored = false;

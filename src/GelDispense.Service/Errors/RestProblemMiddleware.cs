@@ -1,4 +1,3 @@
-using System.Buffers;
 using System.Text.Json;
 using GelDispense.Chemistry.Errors;
 using GelDispense.Service.Extensions;
@@ -36,7 +35,7 @@ public sealed class RestProblemMiddleware(RequestDelegate next, RequestLimits li
         }
 
         var original = context.Response.Body;
-        using var buffer = BufferStreams.Get("rest-answer");
+        using var buffer = new MemoryStream();
         context.Response.Body = buffer;
         try
         {
@@ -75,29 +74,22 @@ public sealed class RestProblemMiddleware(RequestDelegate next, RequestLimits li
             return false;
         }
 
-        var copy = BufferStreams.Get("rest-request", request.ContentLength ?? 0);
-        context.Response.RegisterForDispose(copy);
-        var chunk = ArrayPool<byte>.Shared.Rent(16 * 1024);
-        try
+        var copy = new MemoryStream();
+        var chunk = new byte[16 * 1024];
+        int read;
+        while ((read = await request.Body.ReadAsync(chunk, context.RequestAborted)) > 0)
         {
-            int read;
-            while ((read = await request.Body.ReadAsync(chunk, context.RequestAborted)) > 0)
+            copy.Write(chunk, 0, read);
+            if (copy.Length > max)
             {
-                copy.Write(chunk, 0, read);
-                if (copy.Length > max)
-                {
-                    await WriteTooLargeAsync(context, $"more than {max}", max);
-                    return false;
-                }
+                await WriteTooLargeAsync(context, $"more than {max}", max);
+                return false;
             }
-        }
-        finally
-        {
-            ArrayPool<byte>.Shared.Return(chunk);
         }
 
         copy.Position = 0;
         request.Body = copy;
+        context.Response.RegisterForDispose(copy);
         return true;
     }
 
