@@ -36,11 +36,11 @@ public static class ParseCheckedServiceMethods
     }
 
     /// <summary>INVALID_ARGUMENT naming the message type and what is wrong with the bytes.</summary>
-    public static RpcException NotAMessage<TRequest>(InvalidProtocolBufferException e) =>
+    private static RpcException NotAMessage<TRequest>(InvalidProtocolBufferException e) =>
         new ApiProblem(StatusCode.InvalidArgument, "The request is not a valid protobuf message.",
             [new InputError("request", typeof(TRequest).Name, $"the bytes do not parse as {typeof(TRequest).Name}: {e.Message}")]).ToRpcException();
 
-    public static Marshaller<TRequest> Checked<TRequest>(Marshaller<TRequest> marshaller) =>
+    private static Marshaller<TRequest> Checked<TRequest>(Marshaller<TRequest> marshaller) =>
         new(marshaller.ContextualSerializer, context =>
         {
             try
