@@ -1,5 +1,6 @@
 using GelDispense.Contracts.V1;
 using GelDispense.Service.Tests.Infrastructure;
+using Google.Protobuf.Reflection;
 
 namespace GelDispense.LoadHarness;
 
@@ -49,12 +50,10 @@ public static class Program
                 new(ResultTable.PlanRepeated, "REST", options.Clients, _ => new RestCall(rest, key, "/v1/plans", () => workload.PlanJson)),
                 new(ResultTable.PlanComputed, "REST", options.Clients,
                     _ => new RestCall(rest, key, "/v1/plans", () => workload.PlanJsonAt(workload.FreshGelVolumeMl()))),
-                new(ResultTable.NoOp, "gRPC", options.Clients, _ => new GrpcCall(grpc, key,
-                    (channel, call) => new ProbeService.ProbeServiceClient(channel).PingAsync(new PingRequest(), call).ResponseAsync)),
-                new(ResultTable.PlanRepeated, "gRPC", options.Clients, _ => new GrpcCall(grpc, key,
-                    (channel, call) => new PlanService.PlanServiceClient(channel).CreatePlanAsync(workload.PlanRequest, call).ResponseAsync)),
-                new(ResultTable.PlanComputed, "gRPC", options.Clients, _ => new GrpcCall(grpc, key,
-                    (channel, call) => new PlanService.PlanServiceClient(channel).CreatePlanAsync(workload.PlanRequestAt(workload.FreshGelVolumeMl()), call).ResponseAsync)),
+                new(ResultTable.NoOp, "gRPC", options.Clients, _ => new GrpcCall(grpc, key, Method(ProbeService.Descriptor, "Ping"), () => new PingRequest())),
+                new(ResultTable.PlanRepeated, "gRPC", options.Clients, _ => new GrpcCall(grpc, key, Method(PlanService.Descriptor, "CreatePlan"), () => workload.PlanRequest)),
+                new(ResultTable.PlanComputed, "gRPC", options.Clients, _ => new GrpcCall(grpc, key, Method(PlanService.Descriptor, "CreatePlan"),
+                    () => workload.PlanRequestAt(workload.FreshGelVolumeMl()))),
             ]);
         }
 
@@ -80,6 +79,9 @@ public static class Program
         var scenarios = await IngestScenarios.CreateAsync(service, connectionString, workload, options.Stations);
         return Report(await LoadRunner.RunAsync(scenarios, options, stop.Token));
     }
+
+    private static MethodDescriptor Method(ServiceDescriptor service, string name) =>
+        service.FindMethodByName(name) ?? throw new InvalidOperationException($"{service.FullName} has no method {name}.");
 
     private static CancellationTokenSource StopOnCtrlC()
     {

@@ -3,14 +3,33 @@ using System.Text;
 
 namespace GelDispense.LoadHarness;
 
-/// <summary>A REST client with its own HTTP/1.1 connection that posts to one route, with the body <paramref name="json"/> gives for each call.</summary>
+/// <summary>
+/// A REST client with its own HTTP/1.1 connection that posts to one route, with the body <paramref name="json"/> gives
+/// for each call. It reads every byte of each answer into one reused buffer and does not decode it (see
+/// <see cref="GrpcCall"/>); an answer other than 2xx fails the call with its body.
+/// </summary>
 public sealed class RestCall(Uri baseAddress, string? apiKey, string path, Func<string> json) : ILoadClient
 {
     private readonly HttpClient _http = Connect(baseAddress, apiKey);
+    private readonly byte[] _answer = new byte[16 * 1024];
 
     public Task PrepareAsync(CancellationToken cancellationToken) => Task.CompletedTask;
 
-    public Task CallAsync(CancellationToken cancellationToken) => PostAsync(_http, path, json(), cancellationToken);
+    public async Task CallAsync(CancellationToken cancellationToken)
+    {
+        using var request = new HttpRequestMessage(HttpMethod.Post, path) { Content = new StringContent(json(), Encoding.UTF8, "application/json") };
+        using var response = await _http.SendAsync(request, HttpCompletionOption.ResponseHeadersRead, cancellationToken);
+        if (!response.IsSuccessStatusCode)
+        {
+            var body = await response.Content.ReadAsStringAsync(cancellationToken);
+            throw new HttpRequestException($"POST {path} answered {(int)response.StatusCode}: {(body.Length > 300 ? body[..300] : body)}");
+        }
+
+        await using var answer = await response.Content.ReadAsStreamAsync(cancellationToken);
+        while (await answer.ReadAsync(_answer, cancellationToken) > 0)
+        {
+        }
+    }
 
     public void Dispose() => _http.Dispose();
 
