@@ -10,5 +10,5 @@ namespace GelDispense.Service.Api;
 public sealed class PlanApi(Planner planner) : PlanService.PlanServiceBase
 {
     public override Task<DispensingPlan> CreatePlan(CreatePlanRequest request, ServerCallContext context) =>
-        planner.PlanAsync(request.Recipe, request.Balance, request.Pipette, request.Air, request.Options, context.CancellationToken);
+        planner.AnswerAsync(request.Recipe, request.Balance, request.Pipette, request.Air, request.Options, context.CancellationToken);
 }

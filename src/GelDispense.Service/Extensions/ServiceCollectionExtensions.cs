@@ -29,6 +29,7 @@ public static class ServiceCollectionExtensions
         services.AddGelDispenseStorage(configuration);
         services.AddGelDispenseSecurity(configuration);
         services.AddSingleton<ReagentDirectory>();
+        services.AddSingleton<SerializedAnswers>();
         services.AddSingleton<PlanMemo>();
         services.AddSingleton<RestAnswerMemo>();
         services.AddSingleton<Planner>();
@@ -43,6 +44,6 @@ public static class ServiceCollectionExtensions
         services.AddScoped<RequestLog>();
 
         // Last: the health, reflection and Swagger registrations call AddGrpc again, which would bring the default binder back.
-        return services.AddParseCheckedServiceMethods();
+        return services.AddServiceMethodBinding();
     }
 }

@@ -1,6 +1,7 @@
 using GelDispense.Chemistry.Errors;
 using GelDispense.Contracts.V1;
 using GelDispense.Service.Api;
+using Google.Protobuf;
 
 namespace GelDispense.Service.Tests.Api;
 
@@ -11,7 +12,7 @@ public sealed class PlanMemoTests
     [Fact]
     public async Task The_same_request_is_planned_once_and_every_caller_gets_its_own_copy()
     {
-        using var memo = new PlanMemo();
+        using var memo = new PlanMemo(new SerializedAnswers());
         var key = PlanMemo.Key(new Recipe { Name = "silica-r4" }, Balance, null, null, null);
         var computed = 0;
         Task<DispensingPlan> Plan()
@@ -29,9 +30,29 @@ public sealed class PlanMemoTests
     }
 
     [Fact]
+    public async Task An_answer_sent_as_is_is_the_remembered_plan_itself_with_its_bytes_kept_while_a_copy_has_none()
+    {
+        var serialized = new SerializedAnswers();
+        using var memo = new PlanMemo(serialized);
+        var key = PlanMemo.Key(new Recipe { Name = "silica-r8" }, Balance, null, null, null);
+        static Task<DispensingPlan> Plan() =>
+            Task.FromResult(new DispensingPlan { Feasible = true, Steps = { new PlanStep { Index = 0, ReagentId = "teos", TargetMassG = 20.83 } } });
+
+        var answer = await memo.AnswerAsync(key, Plan);
+        var again = await memo.AnswerAsync(key, () => throw new InvalidOperationException("planned twice"));
+        var copy = await memo.GetOrPlanAsync(key, () => throw new InvalidOperationException("planned twice"));
+
+        Assert.Same(answer, again);
+        Assert.True(serialized.TryGet(answer, out var kept));
+        Assert.Equal(answer.ToByteArray(), kept);
+        Assert.NotSame(answer, copy);
+        Assert.False(serialized.TryGet(copy, out _));
+    }
+
+    [Fact]
     public async Task A_request_that_failed_is_planned_again_next_time()
     {
-        using var memo = new PlanMemo();
+        using var memo = new PlanMemo(new SerializedAnswers());
         var key = PlanMemo.Key(new Recipe { Name = "needs-a-custom-reagent" }, Balance, null, null, null);
 
         await Assert.ThrowsAsync<InvalidInputException>(() => memo.GetOrPlanAsync(key,

@@ -1,25 +1,30 @@
 using System.Reflection;
 using GelDispense.Chemistry.Errors;
+using GelDispense.Service.Api;
+using GelDispense.Service.Errors;
 using Google.Protobuf;
 using Grpc.AspNetCore.Server.Model;
 using Grpc.Core;
 using Microsoft.AspNetCore.Routing;
 using Microsoft.Extensions.DependencyInjection.Extensions;
 
-namespace GelDispense.Service.Errors;
+namespace GelDispense.Service.Extensions;
 
 /// <summary>
-/// Binds every gRPC service as Grpc.AspNetCore's own binder does, but with request marshallers that turn a message
-/// which is not valid protobuf into INVALID_ARGUMENT with a reason. Grpc.AspNetCore parses the request before any
-/// interceptor runs and reports a parse failure as UNKNOWN "Exception was thrown by handler.", which tells a client
-/// that sent a truncated or garbled message nothing about its own mistake.
+/// Binds every gRPC service as Grpc.AspNetCore's own binder does, with two changes to the marshallers:
+/// <list type="bullet">
+/// <item>A request that is not valid protobuf is refused as INVALID_ARGUMENT with a reason. Grpc.AspNetCore parses the
+/// request before any interceptor runs and reports a parse failure as UNKNOWN "Exception was thrown by handler.",
+/// which tells a client that sent a truncated or garbled message nothing about its own mistake.</item>
+/// <item>An answer whose bytes are kept (<see cref="SerializedAnswers"/>, a remembered plan) is written from them.</item>
+/// </list>
 /// </summary>
-public static class ParseCheckedServiceMethods
+public static class ServiceMethodBinding
 {
     /// <summary>Grpc.AspNetCore's default provider, internal to it; replaced by ours.</summary>
     private const string DefaultProviderName = "BinderServiceMethodProvider`1";
 
-    public static IServiceCollection AddParseCheckedServiceMethods(this IServiceCollection services)
+    public static IServiceCollection AddServiceMethodBinding(this IServiceCollection services)
     {
         var defaults = services.Where(d => d.ServiceType == typeof(IServiceMethodProvider<>) && d.ImplementationType?.Name == DefaultProviderName).ToList();
         if (defaults.Count != 1)
@@ -27,7 +32,7 @@ public static class ParseCheckedServiceMethods
             // Both providers would map every method twice; stop at start-up rather than answer with ambiguous routes.
             throw new InvalidOperationException(
                 $"Grpc.AspNetCore's default service method provider ({DefaultProviderName}) was not found once among the registered services; " +
-                "call AddParseCheckedServiceMethods after AddGrpc, and check the provider against the Grpc.AspNetCore version in use.");
+                "call AddServiceMethodBinding after AddGrpc, and check the provider against the Grpc.AspNetCore version in use.");
         }
 
         services.Remove(defaults[0]);
@@ -39,6 +44,20 @@ public static class ParseCheckedServiceMethods
     private static RpcException NotAMessage<TRequest>(InvalidProtocolBufferException e) =>
         new ApiProblem(StatusCode.InvalidArgument, "The request is not a valid protobuf message.",
             [new InputError("request", typeof(TRequest).Name, $"the bytes do not parse as {typeof(TRequest).Name}: {e.Message}")]).ToRpcException();
+
+    /// <summary><paramref name="marshaller"/>, writing an answer whose bytes are kept from those bytes.</summary>
+    internal static Marshaller<TResponse> FromKeptBytes<TResponse>(Marshaller<TResponse> marshaller, SerializedAnswers serialized) =>
+        new((response, context) =>
+        {
+            if (serialized.TryGet(response!, out var bytes))
+            {
+                context.Complete(bytes);
+            }
+            else
+            {
+                marshaller.ContextualSerializer(response, context);
+            }
+        }, marshaller.ContextualDeserializer);
 
     private static Marshaller<TRequest> Checked<TRequest>(Marshaller<TRequest> marshaller) =>
         new(marshaller.ContextualSerializer, context =>
@@ -53,7 +72,7 @@ public static class ParseCheckedServiceMethods
             }
         });
 
-    private sealed class Provider<TService> : IServiceMethodProvider<TService>
+    private sealed class Provider<TService>(SerializedAnswers serialized) : IServiceMethodProvider<TService>
         where TService : class
     {
         public void OnServiceMethodDiscovery(ServiceMethodProviderContext<TService> context)
@@ -65,46 +84,46 @@ public static class ParseCheckedServiceMethods
                 {
                     var method = bind.BindType.GetMethod(bind.BindMethodName, BindingFlags.Public | BindingFlags.Static, [typeof(ServiceBinderBase), type])
                         ?? throw new InvalidOperationException($"{bind.BindType.Name}.{bind.BindMethodName}(ServiceBinderBase, {type.Name}) not found.");
-                    method.Invoke(null, [new Binder<TService>(context, type), null]);
+                    method.Invoke(null, [new Binder<TService>(context, type, serialized), null]);
                     return;
                 }
             }
         }
     }
 
-    /// <summary>Adds each method with its request marshaller checked, the handler found by name as the default binder finds it.</summary>
-    private sealed class Binder<TService>(ServiceMethodProviderContext<TService> context, Type serviceBase) : ServiceBinderBase
+    /// <summary>Adds each method with its marshallers changed, the handler found by name as the default binder finds it.</summary>
+    private sealed class Binder<TService>(ServiceMethodProviderContext<TService> context, Type serviceBase, SerializedAnswers serialized) : ServiceBinderBase
         where TService : class
     {
         public override void AddMethod<TRequest, TResponse>(Method<TRequest, TResponse> method, UnaryServerMethod<TRequest, TResponse>? handler)
         {
             var (invoker, metadata) = Handler<UnaryServerMethod<TService, TRequest, TResponse>>(method.Name, typeof(TRequest), typeof(ServerCallContext));
-            context.AddUnaryMethod(CheckedMethod(method), metadata, invoker);
+            context.AddUnaryMethod(Bound(method), metadata, invoker);
         }
 
         public override void AddMethod<TRequest, TResponse>(Method<TRequest, TResponse> method, ServerStreamingServerMethod<TRequest, TResponse>? handler)
         {
             var (invoker, metadata) = Handler<ServerStreamingServerMethod<TService, TRequest, TResponse>>(
                 method.Name, typeof(TRequest), typeof(IServerStreamWriter<TResponse>), typeof(ServerCallContext));
-            context.AddServerStreamingMethod(CheckedMethod(method), metadata, invoker);
+            context.AddServerStreamingMethod(Bound(method), metadata, invoker);
         }
 
         public override void AddMethod<TRequest, TResponse>(Method<TRequest, TResponse> method, ClientStreamingServerMethod<TRequest, TResponse>? handler)
         {
             var (invoker, metadata) = Handler<ClientStreamingServerMethod<TService, TRequest, TResponse>>(
                 method.Name, typeof(IAsyncStreamReader<TRequest>), typeof(ServerCallContext));
-            context.AddClientStreamingMethod(CheckedMethod(method), metadata, invoker);
+            context.AddClientStreamingMethod(Bound(method), metadata, invoker);
         }
 
         public override void AddMethod<TRequest, TResponse>(Method<TRequest, TResponse> method, DuplexStreamingServerMethod<TRequest, TResponse>? handler)
         {
             var (invoker, metadata) = Handler<DuplexStreamingServerMethod<TService, TRequest, TResponse>>(
                 method.Name, typeof(IAsyncStreamReader<TRequest>), typeof(IServerStreamWriter<TResponse>), typeof(ServerCallContext));
-            context.AddDuplexStreamingMethod(CheckedMethod(method), metadata, invoker);
+            context.AddDuplexStreamingMethod(Bound(method), metadata, invoker);
         }
 
-        private static Method<TRequest, TResponse> CheckedMethod<TRequest, TResponse>(Method<TRequest, TResponse> method) =>
-            new(method.Type, method.ServiceName, method.Name, Checked(method.RequestMarshaller), method.ResponseMarshaller);
+        private Method<TRequest, TResponse> Bound<TRequest, TResponse>(Method<TRequest, TResponse> method) =>
+            new(method.Type, method.ServiceName, method.Name, Checked(method.RequestMarshaller), FromKeptBytes(method.ResponseMarshaller, serialized));
 
         /// <summary>
         /// The service's override of the generated virtual method (or the generated one, which answers UNIMPLEMENTED),

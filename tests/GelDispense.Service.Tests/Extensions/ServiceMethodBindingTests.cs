@@ -1,16 +1,22 @@
 using GelDispense.Contracts.V1;
+using GelDispense.Service.Api;
+using GelDispense.Service.Extensions;
 using GelDispense.Service.Security;
 using GelDispense.Service.Tests.Infrastructure;
 using Google.Protobuf;
 using Google.Rpc;
 using Grpc.Core;
 using Grpc.Reflection.V1Alpha;
+using Microsoft.Extensions.DependencyInjection;
 
-namespace GelDispense.Service.Tests.Errors;
+namespace GelDispense.Service.Tests.Extensions;
 
-/// <summary>gRPC requests whose bytes are not the message the method takes, sent as a client with a broken encoder would.</summary>
+/// <summary>
+/// gRPC requests whose bytes are not the message the method takes, sent as a client with a broken encoder would; and
+/// answers written from the bytes kept for them.
+/// </summary>
 [Collection(ApiCollection.Name)]
-public sealed class ParseCheckedServiceMethodsTests(ApiHosts hosts)
+public sealed class ServiceMethodBindingTests(ApiHosts hosts)
 {
     private static readonly Marshaller<byte[]> RawBytes = Marshallers.Create(b => b, b => b);
 
@@ -126,10 +132,55 @@ public sealed class ParseCheckedServiceMethodsTests(ApiHosts hosts)
         }
     }
 
+    [Fact]
+    public void An_answer_with_kept_bytes_is_written_from_that_very_array_and_any_other_is_serialised_as_before()
+    {
+        var serialized = new SerializedAnswers();
+        var remembered = new DispensingPlan { Feasible = true, Steps = { new PlanStep { Index = 0, ReagentId = "teos", TargetMassG = 20.83 } } };
+        var kept = serialized.Keep(remembered);
+        var marshaller = ServiceMethodBinding.FromKeptBytes(Marshallers.Create(p => p.ToByteArray(), DispensingPlan.Parser.ParseFrom), serialized);
+
+        var fromKept = new RecordedPayload();
+        marshaller.ContextualSerializer(remembered, fromKept);
+        var copy = new RecordedPayload();
+        marshaller.ContextualSerializer(remembered.Clone(), copy);
+
+        Assert.Same(kept, fromKept.Bytes);
+        Assert.NotSame(kept, copy.Bytes);
+        Assert.Equal(kept, copy.Bytes);
+    }
+
+    [Theory, SqliteEngine, PostgresEngine]
+    public async Task A_repeated_plan_over_grpc_carries_the_bytes_kept_for_the_remembered_plan_and_they_are_the_first_answer(string engine)
+    {
+        var host = await hosts.ForAsync(engine);
+        var request = JsonParser.Default.Parse<CreatePlanRequest>($$"""{"recipe":{{Demo.DensityRecipe}},"balance":{{Demo.Balance}}}""");
+        request.Recipe.Name = $"kept-bytes-{engine}";
+
+        var first = await CallAsync(host, "PlanService", "CreatePlan", request.ToByteArray());
+        var second = await CallAsync(host, "PlanService", "CreatePlan", request.ToByteArray());
+
+        var remembered = await host.Services.GetRequiredService<PlanMemo>().AnswerAsync(
+            PlanMemo.Key(request.Recipe, request.Balance, request.Pipette, request.Air, request.Options),
+            () => throw new InvalidOperationException("the plan was not remembered"));
+        Assert.True(host.Services.GetRequiredService<SerializedAnswers>().TryGet(remembered, out var kept));
+        Assert.Equal(kept, second);
+        Assert.Equal(first, second);
+        Assert.NotEmpty(DispensingPlan.Parser.ParseFrom(second).Steps);
+    }
+
     private static Method<byte[], byte[]> Method(MethodType type, string service, string name) =>
         new(type, $"geldispense.v1.{service}", name, RawBytes, RawBytes);
 
     private static async Task<byte[]> CallAsync(ServiceHost host, string service, string name, byte[] body, bool key = true) =>
         await (key ? host.Channel() : host.Channel(null)).CreateCallInvoker()
             .AsyncUnaryCall(Method(MethodType.Unary, service, name), null, new CallOptions(), body).ResponseAsync;
+
+    /// <summary>What a marshaller hands to the transport.</summary>
+    private sealed class RecordedPayload : SerializationContext
+    {
+        public byte[]? Bytes { get; private set; }
+
+        public override void Complete(byte[] payload) => Bytes = payload;
+    }
 }
