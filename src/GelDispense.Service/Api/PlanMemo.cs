@@ -12,12 +12,25 @@ namespace GelDispense.Service.Api;
 /// give, on every replica. Callers get their own copy, except an answer sent as is (<see cref="AnswerAsync"/>), which
 /// is the remembered plan itself, written out from the bytes kept with it.
 /// </summary>
-public sealed class PlanMemo(SerializedAnswers serialized) : IDisposable
+public sealed class PlanMemo : IDisposable
 {
     /// <summary>Bytes kept (request, plan and its serialised form, counted as protobuf); beyond it the least recently used plans are dropped.</summary>
     public const long CapacityBytes = 32L * 1024 * 1024;
 
-    private readonly MemoryCache _plans = new(new MemoryCacheOptions { SizeLimit = CapacityBytes });
+    private readonly SerializedAnswers _serialized;
+    private readonly MemoryCache _plans;
+
+    public PlanMemo(SerializedAnswers serialized)
+        : this(serialized, CapacityBytes)
+    {
+    }
+
+    /// <summary>A memo of another size, for tests of what it drops.</summary>
+    internal PlanMemo(SerializedAnswers serialized, long capacityBytes)
+    {
+        _serialized = serialized;
+        _plans = new MemoryCache(new MemoryCacheOptions { SizeLimit = capacityBytes });
+    }
 
     public static ByteString Key(
         Contract.Recipe? recipe, Contract.BalanceProfile? balance, Contract.PipetteProfile? pipette, Contract.AirConditions? air, Contract.PlanOptions? options) =>
@@ -25,24 +38,42 @@ public sealed class PlanMemo(SerializedAnswers serialized) : IDisposable
 
     /// <summary>The plan for <paramref name="key"/>, planned by <paramref name="plan"/> the first time; the caller's own copy.</summary>
     public async Task<Contract.DispensingPlan> GetOrPlanAsync(ByteString key, Func<Task<Contract.DispensingPlan>> plan) =>
-        (await RememberedAsync(key, plan)).Clone();
+        (await RememberedAsync(key, plan)).Plan.Clone();
 
     /// <summary>
-    /// The remembered plan itself, for an answer that is sent as it is: no copy, and gRPC writes it from the bytes kept
-    /// with it (<see cref="SerializedAnswers"/>). The caller must not change it.
+    /// The remembered plan itself, for an answer that is sent as it is: no copy. From the second time a plan is asked
+    /// for, its protobuf bytes are kept with it and gRPC writes it from them (<see cref="SerializedAnswers"/>); a plan
+    /// asked for once, such as one at a new batch size, is not worth the bytes. The caller must not change it.
     /// </summary>
-    public Task<Contract.DispensingPlan> AnswerAsync(ByteString key, Func<Task<Contract.DispensingPlan>> plan) => RememberedAsync(key, plan);
-
-    private async Task<Contract.DispensingPlan> RememberedAsync(ByteString key, Func<Task<Contract.DispensingPlan>> plan)
+    public async Task<Contract.DispensingPlan> AnswerAsync(ByteString key, Func<Task<Contract.DispensingPlan>> plan)
     {
-        if (!_plans.TryGetValue(key, out Contract.DispensingPlan? remembered) || remembered is null)
+        var (remembered, again) = await RememberedAsync(key, plan);
+        if (again && !_serialized.TryGet(remembered, out _))
         {
-            remembered = await plan();
-            var bytes = serialized.Keep(remembered);
-            _plans.Set(key, remembered, new MemoryCacheEntryOptions { Size = key.Length + 2L * bytes.Length });
+            _serialized.Keep(remembered);
+            // Dropped meanwhile, and perhaps already forgotten by its eviction callback: bytes must not outlive their plan here.
+            if (!_plans.TryGetValue(key, out Contract.DispensingPlan? still) || !ReferenceEquals(still, remembered))
+            {
+                _serialized.Forget(remembered);
+            }
         }
 
         return remembered;
+    }
+
+    private async Task<(Contract.DispensingPlan Plan, bool Again)> RememberedAsync(ByteString key, Func<Task<Contract.DispensingPlan>> plan)
+    {
+        if (_plans.TryGetValue(key, out Contract.DispensingPlan? remembered) && remembered is not null)
+        {
+            return (remembered, true);
+        }
+
+        remembered = await plan();
+        // Sized with room for the bytes it may keep, so that keeping them never pushes the memo past its capacity.
+        var entry = new MemoryCacheEntryOptions { Size = key.Length + 2L * remembered.CalculateSize() };
+        entry.RegisterPostEvictionCallback(static (_, plan, _, answers) => ((SerializedAnswers)answers!).Forget(plan!), _serialized);
+        _plans.Set(key, remembered, entry);
+        return (remembered, false);
     }
 
     public void Dispose() => _plans.Dispose();

@@ -30,7 +30,7 @@ public sealed class PlanMemoTests
     }
 
     [Fact]
-    public async Task An_answer_sent_as_is_is_the_remembered_plan_itself_with_its_bytes_kept_while_a_copy_has_none()
+    public async Task An_answer_sent_as_is_is_the_remembered_plan_itself_with_its_bytes_kept_from_the_second_ask_while_a_copy_has_none()
     {
         var serialized = new SerializedAnswers();
         using var memo = new PlanMemo(serialized);
@@ -39,14 +39,45 @@ public sealed class PlanMemoTests
             Task.FromResult(new DispensingPlan { Feasible = true, Steps = { new PlanStep { Index = 0, ReagentId = "teos", TargetMassG = 20.83 } } });
 
         var answer = await memo.AnswerAsync(key, Plan);
+        var keptAtFirst = serialized.TryGet(answer, out _);
         var again = await memo.AnswerAsync(key, () => throw new InvalidOperationException("planned twice"));
         var copy = await memo.GetOrPlanAsync(key, () => throw new InvalidOperationException("planned twice"));
 
+        Assert.False(keptAtFirst);
         Assert.Same(answer, again);
         Assert.True(serialized.TryGet(answer, out var kept));
         Assert.Equal(answer.ToByteArray(), kept);
         Assert.NotSame(answer, copy);
         Assert.False(serialized.TryGet(copy, out _));
+    }
+
+    [Fact]
+    public async Task A_plan_the_memo_drops_for_want_of_room_takes_its_kept_bytes_with_it()
+    {
+        var serialized = new SerializedAnswers();
+        var plan = new DispensingPlan { Feasible = true, Warnings = { new string('w', 4000) } };
+        Task<DispensingPlan> Plan() => Task.FromResult(plan.Clone());
+        // Room for three of these plans (each counted twice: the plan and its bytes) but not four.
+        using var memo = new PlanMemo(serialized, capacityBytes: 3 * (2L * plan.CalculateSize() + 100));
+        var keys = Enumerable.Range(1, 4)
+            .Select(volume => PlanMemo.Key(new Recipe { Name = "silica-r4", Scale = new BatchScale { GelVolumeMl = volume } }, Balance, null, null, null))
+            .ToList();
+        foreach (var key in keys[..3])
+        {
+            await memo.AnswerAsync(key, Plan);
+            await memo.AnswerAsync(key, Plan);
+        }
+
+        var keptBefore = serialized.Count;
+        await memo.AnswerAsync(keys[3], Plan);
+        // The memo compacts and calls back on the thread pool; ten seconds is ample on any machine.
+        for (var wait = 0; wait < 200 && serialized.Count >= keptBefore; wait++)
+        {
+            await Task.Delay(50);
+        }
+
+        Assert.Equal(3, keptBefore);
+        Assert.True(serialized.Count < keptBefore, $"{serialized.Count} answers still have bytes kept after the memo ran out of room");
     }
 
     [Fact]
