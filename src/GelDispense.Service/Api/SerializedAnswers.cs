@@ -18,9 +18,6 @@ public sealed class SerializedAnswers
 {
     private readonly ConcurrentDictionary<object, byte[]> _bytes = new(ReferenceEqualityComparer.Instance);
 
-    /// <summary>How many answers have bytes kept.</summary>
-    public int Count => _bytes.Count;
-
     /// <summary>Serialises <paramref name="answer"/> once and keeps the bytes with it; returns them.</summary>
     public byte[] Keep(IMessage answer) => _bytes[answer] = answer.ToByteArray();
 
