@@ -21,8 +21,7 @@ public sealed class RestCall(Uri baseAddress, string? apiKey, string path, Func<
         using var response = await _http.SendAsync(request, HttpCompletionOption.ResponseHeadersRead, cancellationToken);
         if (!response.IsSuccessStatusCode)
         {
-            var body = await response.Content.ReadAsStringAsync(cancellationToken);
-            throw new HttpRequestException($"POST {path} answered {(int)response.StatusCode}: {(body.Length > 300 ? body[..300] : body)}");
+            throw Refused(path, response, await response.Content.ReadAsStringAsync(cancellationToken));
         }
 
         await using var answer = await response.Content.ReadAsStreamAsync(cancellationToken);
@@ -51,8 +50,9 @@ public sealed class RestCall(Uri baseAddress, string? apiKey, string path, Func<
         using var content = new StringContent(json, Encoding.UTF8, "application/json");
         using var response = await http.PostAsync(path, content, cancellationToken);
         var body = await response.Content.ReadAsStringAsync(cancellationToken);
-        return response.IsSuccessStatusCode
-            ? body
-            : throw new HttpRequestException($"POST {path} answered {(int)response.StatusCode}: {(body.Length > 300 ? body[..300] : body)}");
+        return response.IsSuccessStatusCode ? body : throw Refused(path, response, body);
     }
+
+    private static HttpRequestException Refused(string path, HttpResponseMessage response, string body) =>
+        new($"POST {path} answered {(int)response.StatusCode}: {(body.Length > 300 ? body[..300] : body)}");
 }
