@@ -3,9 +3,16 @@ using System.IO.Ports;
 namespace GelDispense.Agent.Links;
 
 /// <summary>
-/// An open serial port. A read timeout is "nothing yet"; anything else (ObjectDisposedException after a
-/// hang-up while IsOpen still says true, IOException from an unplugged adapter) propagates as a lost line.
+/// An open serial port. A read timeout is "nothing yet" while the device still answers; anything else
+/// (ObjectDisposedException after a hang-up while IsOpen still says true, IOException from an unplugged adapter)
+/// propagates as a lost line.
 /// </summary>
+/// <remarks>
+/// SerialPort does not always report a hang-up: with eight pseudo-terminals hung up at once, about one hang-up in
+/// fifty left the port timing out every later read instead of failing, so a pulled cable looked like a quiet balance
+/// for ever (the race is inside SerialPort's own I/O loop). After each timeout the input queue is therefore asked for
+/// its length, an ioctl that a hung-up or unplugged tty refuses.
+/// </remarks>
 internal sealed class SerialConnection(SerialPort port, TimeSpan closeTimeout) : IBalanceConnection
 {
     private readonly byte[] _readBuffer = new byte[4096];
@@ -20,7 +27,7 @@ internal sealed class SerialConnection(SerialPort port, TimeSpan closeTimeout) :
         }
         catch (TimeoutException)
         {
-            return 0;
+            return port.BytesToRead >= 0 ? 0 : throw new IOException($"{port.PortName} no longer answers (hung up or unplugged)");
         }
     }
 

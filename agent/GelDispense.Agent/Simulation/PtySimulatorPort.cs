@@ -31,14 +31,16 @@ public sealed class PtySimulatorPort : ISimulatorPort
 
     public int Receive(Span<byte> buffer) => _pty.Read(buffer, 0);
 
-    /// <summary>Hangs up and removes the fixed path, as unplugging a USB adapter removes its by-id name.</summary>
+    /// <summary>Removes the fixed path and hangs up, as unplugging a USB adapter removes its by-id name.</summary>
+    /// <remarks>
+    /// The path goes first: the kernel hands a freed /dev/pts number to the next terminal opened anywhere on the
+    /// machine, so a path left standing for a moment after the hang-up can lead a reopening agent to a stranger's
+    /// terminal, where it would sit connected and never see this line come back.
+    /// </remarks>
     public void Disconnect()
     {
+        DeleteLink();
         _pty.HangUp();
-        if (_linkPath is not null)
-        {
-            File.Delete(_linkPath);
-        }
     }
 
     public void Reconnect()
@@ -51,7 +53,12 @@ public sealed class PtySimulatorPort : ISimulatorPort
 
     public void Dispose()
     {
+        DeleteLink();
         _pty.Dispose();
+    }
+
+    private void DeleteLink()
+    {
         if (_linkPath is not null)
         {
             // Deletes the symlink itself, and does nothing when it is already gone.

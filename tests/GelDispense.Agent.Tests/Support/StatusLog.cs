@@ -18,12 +18,19 @@ internal sealed class StatusLog
     public IReadOnlyList<LinkStatusChange> Changes => [.. _changes];
 
     /// <summary>Waits until a change with <paramref name="status"/> appears after the first <paramref name="skip"/> changes.</summary>
-    public async Task<LinkStatusChange> WaitForAsync(LinkStatus status, int skip = 0, double seconds = 10)
+    public Task<LinkStatusChange> WaitForAsync(LinkStatus status, int skip = 0, double seconds = 10) =>
+        WaitAsync(status, changes => changes.Skip(skip).FirstOrDefault(c => c.Status == status), seconds);
+
+    /// <summary>Waits until <paramref name="status"/> has been reported <paramref name="count"/> times in all.</summary>
+    public Task<LinkStatusChange> WaitForCountAsync(LinkStatus status, int count, double seconds = 10) =>
+        WaitAsync(status, changes => changes.Where(c => c.Status == status).Skip(count - 1).FirstOrDefault(), seconds);
+
+    private async Task<LinkStatusChange> WaitAsync(LinkStatus status, Func<IReadOnlyList<LinkStatusChange>, LinkStatusChange?> find, double seconds)
     {
         var deadline = DateTime.UtcNow.AddSeconds(seconds);
         while (true)
         {
-            var hit = Changes.Skip(skip).FirstOrDefault(c => c.Status == status);
+            var hit = find(Changes);
             if (hit is not null)
             {
                 return hit;
