@@ -14,7 +14,11 @@ public sealed class TcpConnector(TcpLinkSettings settings) : IBalanceConnector
         {
             using var timeout = new CancellationTokenSource(settings.ConnectTimeout);
             client.ConnectAsync(settings.Host, settings.Port, timeout.Token).AsTask().GetAwaiter().GetResult();
-            client.Client.SetSocketOption(SocketOptionLevel.Socket, SocketOptionName.KeepAlive, true);
+            var socket = client.Client;
+            socket.SetSocketOption(SocketOptionLevel.Socket, SocketOptionName.KeepAlive, true);
+            socket.SetSocketOption(SocketOptionLevel.Tcp, SocketOptionName.TcpKeepAliveTime, (int)settings.KeepAliveIdle.TotalSeconds);
+            socket.SetSocketOption(SocketOptionLevel.Tcp, SocketOptionName.TcpKeepAliveInterval, (int)settings.KeepAliveInterval.TotalSeconds);
+            socket.SetSocketOption(SocketOptionLevel.Tcp, SocketOptionName.TcpKeepAliveRetryCount, settings.KeepAliveProbes);
             return new TcpConnection(client, settings.ReadTimeout);
         }
         catch (OperationCanceledException)

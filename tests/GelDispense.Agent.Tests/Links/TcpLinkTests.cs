@@ -35,6 +35,27 @@ public class TcpLinkTests
     }
 
     [Fact]
+    public async Task A_network_balance_connection_arms_its_keep_alive_probe_within_seconds_not_hours()
+    {
+        using var listener = new TcpListener(IPAddress.Loopback, 0);
+        listener.Start();
+        var port = ((IPEndPoint)listener.LocalEndpoint).Port;
+        using var connection = new TcpConnector(new TcpLinkSettings { Host = "127.0.0.1", Port = port }).Open();
+        using var peer = await listener.AcceptTcpClientAsync();
+
+        // Linux proc(5), /proc/net/tcp and tcp6 (the client socket is dual-mode): the agent's end has the listener as
+        // its remote address; "tr" 2 is the keep-alive timer and "tm->when" the time left on it in clock ticks
+        // (USER_HZ, 100 a second). The system default would show about 7200 s.
+        var row = new[] { "/proc/net/tcp", "/proc/net/tcp6" }.SelectMany(table => File.ReadLines(table).Skip(1))
+            .Select(line => line.Split(' ', StringSplitOptions.RemoveEmptyEntries))
+            .Single(fields => fields[2].EndsWith($":{port:X4}", StringComparison.Ordinal) && fields[3] == "01");
+        var timer = row[5].Split(':');
+
+        Assert.Equal("02", timer[0]);
+        Assert.InRange(Convert.ToInt64(timer[1], 16) / 100.0, 0.0, 10.0);
+    }
+
+    [Fact]
     public async Task Nobody_listening_means_reconnecting_with_the_reason()
     {
         int port;
