@@ -80,7 +80,7 @@ public sealed class AdditionRecorder(
                 BatchId = head.Id, AdditionId = request.AdditionId, Ordinal = additions.Count, StepIndex = request.StepIndex,
                 ReadingG = request.ReadingG, Stable = request.Stable, Source = source, LotId = request.LotId, TrueMassG = trueMassG,
                 WithinWindow = addition.WithinWindow, RecordedAt = TimeText.Format(at), ContentHash = contentHash,
-                Response = StoredResponse.Write(response), PlanRevision = inForce.Revision, TargetMassG = step.TargetMassG, AcceptanceG = step.AcceptanceG,
+                ResponseBytes = StoredResponse.Deflate(response), PlanRevision = inForce.Revision, TargetMassG = step.TargetMassG, AcceptanceG = step.AcceptanceG,
             };
             var replan = outlook.Replanned
                 ? new PlanRevisionRow
@@ -156,7 +156,8 @@ public sealed class AdditionRecorder(
                 "this addition id was already recorded with other content; use a new id for a new addition");
         }
 
-        var response = StoredResponse.Read(await store.ResponseAsync(earlier.BatchId, earlier.AdditionId, cancellationToken));
+        var (text, bytes) = await store.ResponseAsync(earlier.BatchId, earlier.AdditionId, cancellationToken);
+        var response = StoredResponse.Read(text, bytes);
         response.Replayed = true;
         return response;
     }

@@ -17,8 +17,13 @@ public sealed class AdditionRow
     public string RecordedAt { get; init; } = "";
     /// <summary>Hash of what the station sent; a replay with another hash is a conflict.</summary>
     public string ContentHash { get; init; } = "";
-    /// <summary>Written with the addition; bulk reads leave it empty (<see cref="BatchStore.ResponseAsync"/> reads it).</summary>
+    /// <summary>Empty for rows written since the answer is kept as bytes; earlier rows hold their answer's text here.</summary>
     public string Response { get; init; } = "";
+    /// <summary>
+    /// The answer a replay returns, deflated protobuf (see Batches.StoredResponse); written with the addition, null in
+    /// rows written before it and in bulk reads (<see cref="BatchStore.ResponseAsync"/> reads it).
+    /// </summary>
+    public byte[]? ResponseBytes { get; init; }
     /// <summary>The plan revision the addition was judged against.</summary>
     public long PlanRevision { get; init; }
     /// <summary>The step's target true mass in that revision.</summary>

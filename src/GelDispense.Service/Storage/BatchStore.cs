@@ -117,12 +117,12 @@ public sealed class BatchStore(IDatabase database)
             new { batchId, revision }, cancellationToken: cancellationToken));
     }
 
-    /// <summary>The response stored with an addition, which a replay of it returns unchanged.</summary>
-    public async Task<string> ResponseAsync(string batchId, string additionId, CancellationToken cancellationToken)
+    /// <summary>The response stored with an addition, which a replay of it returns unchanged: its text and bytes columns.</summary>
+    public async Task<(string Text, byte[]? Bytes)> ResponseAsync(string batchId, string additionId, CancellationToken cancellationToken)
     {
         await using var connection = await database.OpenAsync(cancellationToken);
-        return await connection.QuerySingleAsync<string>(new CommandDefinition(
-            "SELECT response FROM additions WHERE batch_id = @batchId AND addition_id = @additionId", new { batchId, additionId }, cancellationToken: cancellationToken));
+        return await connection.QuerySingleAsync<(string, byte[]?)>(new CommandDefinition(
+            "SELECT response, response_bytes FROM additions WHERE batch_id = @batchId AND addition_id = @additionId", new { batchId, additionId }, cancellationToken: cancellationToken));
     }
 
     /// <summary>The response stored with a correction, which a replay of it returns.</summary>
@@ -179,9 +179,9 @@ public sealed class BatchStore(IDatabase database)
         {
             Insert = """
                 INSERT INTO additions (batch_id, addition_id, ordinal, step_index, reading_g, stable, source, lot_id, true_mass_g,
-                                       within_window, recorded_at, content_hash, response, plan_revision, target_mass_g, acceptance_g)
+                                       within_window, recorded_at, content_hash, response, response_bytes, plan_revision, target_mass_g, acceptance_g)
                 SELECT @BatchId, @AdditionId, @Ordinal, @StepIndex, @ReadingG, @Stable, @Source, @LotId, @TrueMassG,
-                       @WithinWindow, @RecordedAt, @ContentHash, @Response, @PlanRevision, @TargetMassG, @AcceptanceG
+                       @WithinWindow, @RecordedAt, @ContentHash, @Response, @ResponseBytes, @PlanRevision, @TargetMassG, @AcceptanceG
                 """,
             Row = addition, Addition = addition, Replan = replan,
         }, cancellationToken);

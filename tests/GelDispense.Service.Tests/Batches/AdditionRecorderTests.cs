@@ -45,7 +45,7 @@ public sealed class AdditionRecorderTests(ApiHosts hosts)
     }
 
     [Theory, SqliteEngine, PostgresEngine]
-    public async Task An_addition_keeps_its_answer_in_under_half_the_text_of_the_plain_base64_form_and_a_replay_returns_that_answer(string engine)
+    public async Task An_addition_keeps_its_answer_as_deflated_bytes_in_under_a_third_of_the_plain_base64_form_and_a_replay_returns_that_answer(string engine)
     {
         var host = await hosts.ForAsync(engine);
         var grpc = new BatchService.BatchServiceClient(host.Channel());
@@ -56,11 +56,35 @@ public sealed class AdditionRecorderTests(ApiHosts hosts)
         var replay = await grpc.RecordAdditionAsync(addition);
 
         await using var connection = await RawDatabase.OpenAsync(host);
-        var stored = await connection.QuerySingleAsync<string>(
-            "SELECT response FROM additions WHERE batch_id = @id AND addition_id = 'd1'", new { id = batch.Id });
-        Assert.StartsWith(StoredResponse.DeflatedPrefix, stored, StringComparison.Ordinal);
+        var (text, bytes) = await connection.QuerySingleAsync<(string, byte[])>(
+            "SELECT response, response_bytes FROM additions WHERE batch_id = @id AND addition_id = 'd1'", new { id = batch.Id });
+        Assert.Equal("", text);
         var plain = Convert.ToBase64String(first.ToByteArray()).Length;
-        Assert.True(stored.Length * 2 < plain, $"stored {stored.Length} characters where the plain base64 form has {plain}");
+        Assert.True(bytes.Length * 3 < plain, $"stored {bytes.Length} bytes where the plain base64 form has {plain} characters");
+        Assert.True(replay.Replayed);
+        replay.Replayed = false;
+        Assert.Equal(first, replay);
+    }
+
+    [Theory, SqliteEngine, PostgresEngine]
+    public async Task An_addition_stored_as_text_before_its_answer_was_kept_as_bytes_still_replays_its_answer(string engine)
+    {
+        var host = await hosts.ForAsync(engine);
+        var grpc = new BatchService.BatchServiceClient(host.Channel());
+        var batch = await grpc.CreateBatchAsync(Corrections.CreateRequest("bench-deflate"));
+        var addition = Corrections.Add(batch, "t1", 0, batch.Steps[0].TargetReadingG);
+        var first = await grpc.RecordAdditionAsync(addition);
+
+        // The row as the version before migration 0008 wrote it: the deflated base64 text, no bytes.
+        await using (var connection = await RawDatabase.OpenAsync(host))
+        {
+            await connection.ExecuteAsync(
+                "UPDATE additions SET response = @text, response_bytes = NULL WHERE batch_id = @id AND addition_id = 't1'",
+                new { text = StoredResponse.Write(first), id = batch.Id });
+        }
+
+        var replay = await grpc.RecordAdditionAsync(addition);
+
         Assert.True(replay.Replayed);
         replay.Replayed = false;
         Assert.Equal(first, replay);

@@ -51,6 +51,16 @@ public sealed class StoredResponseTests
     }
 
     [Fact]
+    public void A_response_read_back_from_its_deflated_bytes_equals_the_one_written_and_the_bytes_win_over_the_text()
+    {
+        var deflated = StoredResponse.Deflate(Response);
+
+        Assert.Equal(Response, StoredResponse.Read("", deflated));
+        Assert.Equal(Response, StoredResponse.Read("not read when there are bytes", deflated));
+        Assert.Equal(Response, StoredResponse.Read(StoredResponse.Write(Response), null));
+    }
+
+    [Fact]
     public void A_response_stored_as_plain_base64_protobuf_by_an_earlier_version_still_reads()
     {
         Assert.Equal(Response, StoredResponse.Read(Convert.ToBase64String(Response.ToByteArray())));
