@@ -47,17 +47,12 @@ public sealed class AdditionRecorderTests(ApiHosts hosts)
     [Theory, SqliteEngine, PostgresEngine]
     public async Task An_addition_keeps_its_answer_as_deflated_bytes_in_under_a_third_of_the_plain_base64_form_and_a_replay_returns_that_answer(string engine)
     {
-        var host = await hosts.ForAsync(engine);
-        var grpc = new BatchService.BatchServiceClient(host.Channel());
-        var batch = await grpc.CreateBatchAsync(Corrections.CreateRequest("bench-deflate"));
-        var addition = Corrections.Add(batch, "d1", 0, batch.Steps[0].TargetReadingG);
-
-        var first = await grpc.RecordAdditionAsync(addition);
+        var (host, grpc, addition, first) = await FirstStepRecordedAsync(engine, "d1");
         var replay = await grpc.RecordAdditionAsync(addition);
 
         await using var connection = await RawDatabase.OpenAsync(host);
         var (text, bytes) = await connection.QuerySingleAsync<(string, byte[])>(
-            "SELECT response, response_bytes FROM additions WHERE batch_id = @id AND addition_id = 'd1'", new { id = batch.Id });
+            "SELECT response, response_bytes FROM additions WHERE batch_id = @id AND addition_id = 'd1'", new { id = addition.BatchId });
         Assert.Equal("", text);
         var plain = Convert.ToBase64String(first.ToByteArray()).Length;
         Assert.True(bytes.Length * 3 < plain, $"stored {bytes.Length} bytes where the plain base64 form has {plain} characters");
@@ -69,18 +64,14 @@ public sealed class AdditionRecorderTests(ApiHosts hosts)
     [Theory, SqliteEngine, PostgresEngine]
     public async Task An_addition_stored_as_text_before_its_answer_was_kept_as_bytes_still_replays_its_answer(string engine)
     {
-        var host = await hosts.ForAsync(engine);
-        var grpc = new BatchService.BatchServiceClient(host.Channel());
-        var batch = await grpc.CreateBatchAsync(Corrections.CreateRequest("bench-deflate"));
-        var addition = Corrections.Add(batch, "t1", 0, batch.Steps[0].TargetReadingG);
-        var first = await grpc.RecordAdditionAsync(addition);
+        var (host, grpc, addition, first) = await FirstStepRecordedAsync(engine, "t1");
 
         // The row as the version before migration 0008 wrote it: the deflated base64 text, no bytes.
         await using (var connection = await RawDatabase.OpenAsync(host))
         {
             await connection.ExecuteAsync(
                 "UPDATE additions SET response = @text, response_bytes = NULL WHERE batch_id = @id AND addition_id = 't1'",
-                new { text = StoredResponse.Write(first), id = batch.Id });
+                new { text = StoredResponse.Write(first), id = addition.BatchId });
         }
 
         var replay = await grpc.RecordAdditionAsync(addition);
@@ -113,5 +104,16 @@ public sealed class AdditionRecorderTests(ApiHosts hosts)
         Assert.Equal(4, batch.Version);
         // Judged with r2 in the vessel: the answer's as-made is the one computed from the database afterwards.
         Assert.Equal(await here.GetAsMadeAsync(new GetAsMadeRequest { BatchId = id }), third.AsMade);
+    }
+
+    /// <summary>A new batch of the demo recipe with its first step recorded at its target reading over gRPC.</summary>
+    private async Task<(ServiceHost Host, BatchService.BatchServiceClient Grpc, RecordAdditionRequest Addition, RecordAdditionResponse First)> FirstStepRecordedAsync(
+        string engine, string additionId)
+    {
+        var host = await hosts.ForAsync(engine);
+        var grpc = new BatchService.BatchServiceClient(host.Channel());
+        var batch = await grpc.CreateBatchAsync(Corrections.CreateRequest("bench-deflate"));
+        var addition = Corrections.Add(batch, additionId, 0, batch.Steps[0].TargetReadingG);
+        return (host, grpc, addition, await grpc.RecordAdditionAsync(addition));
     }
 }
