@@ -5,9 +5,9 @@ using Google.Protobuf;
 namespace GelDispense.Service.Batches;
 
 /// <summary>
-/// How an addition's (or a correction's) response is kept for replays: its protobuf bytes, deflated — as they are for
-/// an addition (<see cref="Deflate"/>, the additions.response_bytes column), in base64 after a
-/// <see cref="DeflatedPrefix"/> for a correction. The response repeats the handling cautions of every remaining step,
+/// How an addition's (or a correction's) response is kept for replays: its protobuf bytes, deflated; an addition's as
+/// bytes (<see cref="Deflate"/>, the additions.response_bytes column), a correction's as base64 text after
+/// <see cref="DeflatedPrefix"/>. The response repeats the handling cautions of every remaining step,
 /// so it deflates to well under half its protobuf size; left to the database, PostgreSQL compressed the 10–12 KB text
 /// itself with pglz on every addition, about a tenth of its CPU (docs/performance.md). Rows written by earlier
 /// versions hold the deflated base64 text, plain base64 protobuf or protobuf JSON, and still read.
