@@ -10,8 +10,8 @@ namespace GelDispense.Agent.Links;
 /// <remarks>
 /// SerialPort does not always report a hang-up: with eight pseudo-terminals hung up at once, about one hang-up in
 /// fifty left the port timing out every later read instead of failing, so a pulled cable looked like a quiet balance
-/// for ever (the race is inside SerialPort's own I/O loop). After each timeout the input queue is therefore asked for
-/// its length, an ioctl that a hung-up or unplugged tty refuses.
+/// for ever (a race somewhere inside SerialPort; a single port on an idle machine never showed it). After each timeout
+/// the input queue is therefore asked for its length, an ioctl that a hung-up or unplugged tty refuses.
 /// </remarks>
 internal sealed class SerialConnection(SerialPort port, TimeSpan closeTimeout) : IBalanceConnection
 {

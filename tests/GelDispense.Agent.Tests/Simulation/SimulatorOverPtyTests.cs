@@ -75,16 +75,17 @@ public sealed class SimulatorOverPtyTests : TempDirectoryTest
     [Fact]
     public async Task Every_disconnect_of_many_simulated_balances_at_once_is_seen_as_lost()
     {
-        // SerialPort misses the odd hang-up that meets its I/O loop between two reads, more often on a busy machine
-        // (here about 1 in 50 with eight balances at once); the link must see each one through its own check.
+        // SerialPort misses the odd hang-up when several ports are cut at once (here about 1 in 50 with eight
+        // balances); the link must see each one through its own check.
         const int Balances = 8, LossesEach = 5;
         var settings = new SimulatorSettings { SampleInterval = TimeSpan.FromMilliseconds(20), DisconnectEvery = TimeSpan.FromMilliseconds(400), DisconnectFor = TimeSpan.FromMilliseconds(150) };
         var missed = await Task.WhenAll(Enumerable.Range(0, Balances).Select(i => Task.Run(async () =>
         {
-            using var port = new PtySimulatorPort(Path.Combine(Dir, $"balance-{i}"));
+            var path = Path.Combine(Dir, $"balance-{i}");
+            using var port = new PtySimulatorPort(path);
             using var stop = new CancellationTokenSource();
             var hosting = Host(settings, new ScriptedTechnician([], new TechnicianPace()), port, BuiltInFormats.Keyed).RunAsync(null, stop.Token);
-            await using var link = FastLinks.Serial(Path.Combine(Dir, $"balance-{i}"));
+            await using var link = FastLinks.Serial(path);
             var status = new StatusLog(link);
             link.Start();
             string? failure = null;
