@@ -12,17 +12,17 @@ namespace GelDispense.LoadHarness;
 /// </summary>
 public sealed record HarnessOptions(
     int Clients, TimeSpan Duration, int Rounds, TimeSpan Warmup, TimeSpan MaxWarmup, int MaxRequests, bool Additions, bool AdditionsOnly, bool Ingest,
-    int Stations, string? Postgres)
+    int Stations, string? Postgres, string? Only)
 {
     public const string Usage =
         "usage: GelDispense.LoadHarness [--clients 1..64 (8)] [--seconds 1..60 (8)] [--rounds 1..20 (4)] [--warmup-seconds 0..10 (2)] [--max-warmup-seconds 0..600 (180)] " +
-        "[--max-requests 1..1000000 (500000)] [--no-additions | --additions-only | --ingest [--stations 1..64 (50)] " +
+        "[--max-requests 1..1000000 (500000)] [--only \"text in a scenario's name or protocol\"] [--no-additions | --additions-only | --ingest [--stations 1..64 (50)] " +
         "[--postgres \"Host=127.0.0.1;...\" (default: a throwaway local cluster)]]";
 
     public static HarnessOptions Parse(IReadOnlyList<string> args)
     {
         var options = new HarnessOptions(8, TimeSpan.FromSeconds(8), 4, TimeSpan.FromSeconds(2), TimeSpan.FromSeconds(180), 500_000, Additions: true, AdditionsOnly: false,
-            Ingest: false, Stations: 50, Postgres: null);
+            Ingest: false, Stations: 50, Postgres: null, Only: null);
         for (var i = 0; i < args.Count; i++)
         {
             var name = args[i];
@@ -38,6 +38,7 @@ public sealed record HarnessOptions(
                 "--additions-only" => options with { Additions = true, AdditionsOnly = true },
                 "--ingest" => options with { Ingest = true },
                 "--stations" => options with { Stations = Number(name, Value(args, ref i), 1, 64) },
+                "--only" => options with { Only = Value(args, ref i) },
                 "--postgres" => options with { Postgres = Loopback(name, Value(args, ref i)) },
                 _ => throw new ArgumentException($"{name}: unknown option. {Usage}"),
             };

@@ -1,6 +1,8 @@
 using GelDispense.Contracts.V1;
 using GelDispense.Service.Tests.Infrastructure;
+using GelDispense.Service.Storage;
 using Google.Protobuf.Reflection;
+using Npgsql;
 
 namespace GelDispense.LoadHarness;
 
@@ -32,11 +34,12 @@ public static class Program
             $"warm-up passes of {options.Warmup.TotalSeconds:0} s per scenario until the JIT settles (at most {options.MaxWarmup.TotalSeconds:0} s), at most {options.MaxRequests} requests per scenario; service in process on 127.0.0.1 " +
             $"with {(options.Ingest ? "PostgreSQL" : "SQLite in a temp dir")}; load average before: {LoadAverage()}.");
         var workload = DemoWorkload.Load();
-        if (options.Ingest)
-        {
-            return await IngestAsync(options, workload);
-        }
+        return options.Ingest ? await IngestAsync(options, workload) : await PlansAsync(options, workload);
+    }
 
+    /// <summary>The service on SQLite: plans against the no-op on REST and gRPC, and the latency of recording additions.</summary>
+    private static async Task<int> PlansAsync(HarnessOptions options, DemoWorkload workload)
+    {
         await using var service = await InProcessService.StartAsync();
         using var stop = StopOnCtrlC();
 
@@ -65,19 +68,39 @@ public static class Program
             scenarios.Add(new(addition, "REST", options.Clients, k => new AdditionSequence(rest, key, workload.BatchJson, k)));
         }
 
-        return Report(await LoadRunner.RunAsync(scenarios, options, stop.Token));
+        return await RunAsync(scenarios, options, stop.Token);
     }
 
     /// <summary>The service on PostgreSQL (a throwaway cluster unless --postgres names one), stations against raw inserts.</summary>
     private static async Task<int> IngestAsync(HarnessOptions options, DemoWorkload workload)
     {
-        // The cluster allows 200 connections: the service's pool (100 by default) and one per raw loop, with room to spare.
+        // The cluster allows 300 connections: the service's pool (100 by default), one per raw loop and the storage-write
+        // baseline's pool (one per loop), with room to spare.
         await using var cluster = options.Postgres is null ? await LocalPostgres.StartAsync() : null;
         var connectionString = options.Postgres ?? cluster!.ConnectionString;
         await using var service = await InProcessService.StartAsync(connectionString);
+        // The storage-write baseline's own pool, as the service would have it, beside the service's.
+        await using var database = new PostgresDatabase(
+            new NpgsqlConnectionStringBuilder(connectionString) { MaxPoolSize = options.Stations }.ConnectionString, TimeProvider.System);
         using var stop = StopOnCtrlC();
-        var scenarios = await IngestScenarios.CreateAsync(service, connectionString, workload, options.Stations);
-        return Report(await LoadRunner.RunAsync(scenarios, options, stop.Token));
+        var scenarios = await IngestScenarios.CreateAsync(service, connectionString, new BatchStore(database), workload, options.Stations);
+        return await RunAsync(scenarios, options, stop.Token);
+    }
+
+    /// <summary>Runs the scenarios (with --only, those whose name or protocol holds its text) and reports them.</summary>
+    private static async Task<int> RunAsync(IReadOnlyList<Scenario> scenarios, HarnessOptions options, CancellationToken cancellationToken)
+    {
+        IReadOnlyList<Scenario> chosen = options.Only is not { } only
+            ? scenarios
+            : [.. scenarios.Where(s => s.Name.Contains(only, StringComparison.OrdinalIgnoreCase) || s.Protocol.Contains(only, StringComparison.OrdinalIgnoreCase))];
+        if (chosen.Count == 0)
+        {
+            await Console.Error.WriteLineAsync($"--only '{options.Only}': no scenario's name or protocol holds it; they are: " +
+                string.Join("; ", scenarios.Select(s => $"{s.Name} ({s.Protocol})")));
+            return 2;
+        }
+
+        return Report(await LoadRunner.RunAsync(chosen, options, cancellationToken));
     }
 
     private static MethodDescriptor Method(ServiceDescriptor service, string name) =>
