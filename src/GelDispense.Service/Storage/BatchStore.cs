@@ -265,7 +265,6 @@ public sealed class BatchStore(IDatabase database)
     {
         using var turn = await database.EnterWriteAsync(cancellationToken);
         await using var connection = await database.OpenAsync(cancellationToken);
-        await using var transaction = await connection.BeginTransactionAsync(cancellationToken);
         var draft = new EventRow
         {
             BatchId = write.BatchId, Type = write.EventType, Body = write.EventBody, OccurredAt = TimeText.Format(write.At),
@@ -276,10 +275,12 @@ public sealed class BatchStore(IDatabase database)
         {
             if (database.Engine == PostgresDatabase.EngineName)
             {
-                var seq = await connection.ExecuteScalarAsync<long?>(new CommandDefinition(PostgresWrite(write), PostgresWriteParameters(write, draft), transaction, cancellationToken: cancellationToken));
+                // One statement, so its own transaction: no BEGIN or COMMIT for PostgreSQL to run besides it.
+                var seq = await connection.ExecuteScalarAsync<long?>(new CommandDefinition(PostgresWrite(write), PostgresWriteParameters(write, draft), cancellationToken: cancellationToken));
                 return seq is { } written ? new WriteOutcome(true, written) : WriteOutcome.Conflict;
             }
 
+            await using var transaction = await connection.BeginTransactionAsync(cancellationToken);
             // Taking the batch row first serialises writers of one batch; the loser sees no row and re-reads. Once the row
             // is ours no other event of this batch can be appended, so its latest hash comes in the same round trip.
             var (claimed, prevHash) = await ClaimAsync(connection, transaction, write.BatchId, write.ExpectedVersion, write.At, cancellationToken);
@@ -362,7 +363,7 @@ public sealed class BatchStore(IDatabase database)
             sets += "status = @status, abort_reason = @abortReason, ";
         }
 
-        return EventLog.PostgresAppendAndCommit(string.Join(",\n", before), mayWrite, sets);
+        return EventLog.PostgresAppend(string.Join(",\n", before), mayWrite, sets);
     }
 
     private static DynamicParameters PostgresWriteParameters(VersionedWrite write, EventRow draft)

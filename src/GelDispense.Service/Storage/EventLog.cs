@@ -30,8 +30,10 @@ public static class EventLog
         {
             var parameters = PostgresParameters(draft, addition, correction);
             parameters.Add("prevHash", prevHash);
+            // COMMIT in the same round trip: Npgsql sees the transaction end, and the caller's dispose has nothing left to
+            // roll back; after an error the COMMIT is skipped and the dispose rolls back.
             return await connection.ExecuteScalarAsync<long>(new CommandDefinition(
-                PostgresAppendAndCommit("prev AS (SELECT @prevHash AS hash)", "TRUE", ""), parameters, transaction, cancellationToken: cancellationToken));
+                $"{PostgresAppend("prev AS (SELECT @prevHash AS hash)", "TRUE", "")};\nCOMMIT", parameters, transaction, cancellationToken: cancellationToken));
         }
 
         var entry = entryAt(await connection.ExecuteScalarAsync<long>(new CommandDefinition("""
@@ -55,13 +57,11 @@ public static class EventLog
     /// <c>prev(hash)</c>, the batch's latest hash, with no row when nothing may be written), bumps the counter when
     /// <paramref name="mayWrite"/> holds, inserts the event with its hash computed in SQL, sets
     /// <paramref name="batchSets"/> and the event pointer on the batch and returns the sequence number (no row when
-    /// nothing was written); then COMMIT in the same round trip. Npgsql sees the transaction end, and the caller's
-    /// dispose has nothing left to roll back; after an error the COMMIT is skipped and the dispose rolls back.
-    /// The hash is AuditChain.Link(prev, AuditChain.Canonical(entry)): the seq field (name, length, value, newline)
+    /// nothing was written). The hash is AuditChain.Link(prev, AuditChain.Canonical(entry)): the seq field (name, length, value, newline)
     /// is written here because only this statement knows the number. The batch's updated_at, which the counter's
     /// running maximum takes in, is the event's time in every write.
     /// </summary>
-    public static string PostgresAppendAndCommit(string before, string mayWrite, string batchSets) => $"""
+    public static string PostgresAppend(string before, string mayWrite, string batchSets) => $"""
         WITH {before},
         next AS (
             UPDATE event_sequence SET last_seq = last_seq + 1, high_water_at = GREATEST(high_water_at, @eventAt)
@@ -73,11 +73,10 @@ public static class EventLog
             FROM next, prev
             RETURNING seq)
         UPDATE batches SET {batchSets}last_event_seq = event.seq, high_water_at = next.high_water_at FROM event, next WHERE batches.id = @eventBatchId
-        RETURNING event.seq;
-        COMMIT
+        RETURNING event.seq
         """;
 
-    /// <summary>The parameters <see cref="PostgresAppendAndCommit"/> reads, from the event drafted without its number.</summary>
+    /// <summary>The parameters <see cref="PostgresAppend"/> reads, from the event drafted without its number.</summary>
     public static DynamicParameters PostgresParameters(EventRow draft, AdditionRow? addition, CorrectionRow? correction)
     {
         var parameters = new DynamicParameters();
