@@ -2,7 +2,6 @@ using GelDispense.Contracts.V1;
 using GelDispense.Service.Tests.Infrastructure;
 using GelDispense.Service.Storage;
 using Google.Protobuf.Reflection;
-using Npgsql;
 
 namespace GelDispense.LoadHarness;
 
@@ -74,14 +73,12 @@ public static class Program
     /// <summary>The service on PostgreSQL (a throwaway cluster unless --postgres names one), stations against raw inserts.</summary>
     private static async Task<int> IngestAsync(HarnessOptions options, DemoWorkload workload)
     {
-        // The cluster allows 300 connections: the service's pool (100 by default), one per raw loop and the storage-write
-        // baseline's pool (one per loop), with room to spare.
+        // The cluster allows 200 connections: the service's pool, one per raw loop and the storage-write baseline's pool.
         await using var cluster = options.Postgres is null ? await LocalPostgres.StartAsync() : null;
         var connectionString = options.Postgres ?? cluster!.ConnectionString;
         await using var service = await InProcessService.StartAsync(connectionString);
-        // The storage-write baseline's own pool, as the service would have it, beside the service's.
-        await using var database = new PostgresDatabase(
-            new NpgsqlConnectionStringBuilder(connectionString) { MaxPoolSize = options.Stations }.ConnectionString, TimeProvider.System);
+        // The storage-write baseline's own pool, with the service's settings (PostgresDatabase.WithPoolDefaults).
+        await using var database = new PostgresDatabase(connectionString, TimeProvider.System);
         using var stop = StopOnCtrlC();
         var scenarios = await IngestScenarios.CreateAsync(service, connectionString, new BatchStore(database), workload, options.Stations);
         return await RunAsync(scenarios, options, stop.Token);

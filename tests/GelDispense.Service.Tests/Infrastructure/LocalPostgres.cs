@@ -39,7 +39,7 @@ public sealed class LocalPostgres : IAsyncDisposable
         var cluster = new LocalPostgres(bin, dataDir, port);
         await cluster.RunAsync("initdb", $"-D {dataDir} -U postgres -A trust -E UTF8 --locale=C.UTF-8 --no-sync");
         await cluster.RunAsync("pg_ctl", $"-D {dataDir} -l {dataDir}/server.log -s -w -t 30 -o \"-p {port} -k {dataDir} " +
-            "-c listen_addresses=127.0.0.1 -c fsync=off -c synchronous_commit=off -c full_page_writes=off -c max_connections=300\" start");
+            "-c listen_addresses=127.0.0.1 -c fsync=off -c synchronous_commit=off -c full_page_writes=off -c max_connections=200\" start");
         return cluster;
     }
 
