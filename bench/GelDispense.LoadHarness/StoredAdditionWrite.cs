@@ -6,7 +6,7 @@ namespace GelDispense.LoadHarness;
 /// <summary>
 /// The second baseline: the service's own storage write of an addition (<see cref="BatchStore.TryAppendAdditionAsync"/>:
 /// the version claim, the addition row, the hash-chained event, the batch's new version and the event counter, one
-/// statement and COMMIT), called in a loop on a batch of its own (<paramref name="batchId"/>) with rows like
+/// statement in its own transaction), called in a loop on a batch of its own (<paramref name="batchId"/>) with rows like
 /// <paramref name="template"/>. No request, key check, chemistry or answer: what is left between this and the
 /// stations is the service's part, and between this and the raw inserts the part the schema asks of the database.
 /// </summary>

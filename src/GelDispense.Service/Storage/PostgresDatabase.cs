@@ -37,10 +37,11 @@ public sealed class PostgresDatabase(string connectionString, TimeProvider time)
     /// transaction-scoped), so PostgreSQL is not sent DISCARD ALL on every return to the pool and keeps the
     /// statements Npgsql prepares automatically once they repeat. Measured with 50 stations: PostgreSQL stopped
     /// planning every statement on every call (docs/performance.md).</item>
-    /// <item>At most <see cref="DefaultMaxPoolSize"/> connections, not Npgsql's 100. Every write passes through the one
-    /// event counter row, and each backend is a process of its own: measured with 50 stations on two cores, a pool of
-    /// 4 to 8 took the same additions for about 0.4 ms of PostgreSQL CPU each against 0.6 ms when every station had
-    /// its own backend, and the service's write alone ran about twice as fast (docs/performance.md). Common practice
+    /// <item>At most <see cref="DefaultMaxPoolSize"/> connections, not Npgsql's 100. Measured with 50 stations on two
+    /// cores, a pool of 4 to 8 took the same additions for about 0.4 ms of PostgreSQL CPU each against 0.6 ms when every
+    /// station had a backend of its own, and the service's write alone ran about twice as fast; letting only 4 writes
+    /// into PostgreSQL at once over the large pool did not help, so it is the number of backends taking turns that
+    /// costs (docs/performance.md). Common practice
     /// (the PostgreSQL wiki's "Number Of Database Connections", recalled) sizes all pools on a server together to
     /// about twice its cores; with several replicas, give each its share.</item>
     /// </list>
