@@ -12,25 +12,15 @@ namespace GelDispense.LoadHarness;
 /// </summary>
 public sealed class StoredAdditionWrite(BatchStore store, StoredAdditionWrite.Template template, string batchId, TimeProvider time) : ILoadClient
 {
-    /// <summary>A stored addition with its answer bytes and its event, read back from the template batch.</summary>
-    public sealed record Template(AdditionRow Addition, string EventBody, EventAudit Audit)
+    /// <summary>A stored addition as a bulk read gives it (no answer), its answer bytes and its event, from the template batch.</summary>
+    public sealed record Template(AdditionRow Addition, byte[]? ResponseBytes, string EventBody, EventAudit Audit)
     {
         public static async Task<Template> ReadAsync(BatchStore store, string batchId, string additionId)
         {
             var (events, additions, _) = await store.AuditTrailAsync(batchId, CancellationToken.None);
             var recorded = events.Single(e => e.AdditionId == additionId);
             var (_, bytes) = await store.ResponseAsync(batchId, additionId, CancellationToken.None);
-            var addition = additions[additionId];
-            return new Template(
-                new AdditionRow
-                {
-                    BatchId = addition.BatchId, AdditionId = addition.AdditionId, Ordinal = addition.Ordinal, StepIndex = addition.StepIndex,
-                    ReadingG = addition.ReadingG, Stable = addition.Stable, Source = addition.Source, LotId = addition.LotId,
-                    TrueMassG = addition.TrueMassG, WithinWindow = addition.WithinWindow, RecordedAt = addition.RecordedAt,
-                    ContentHash = addition.ContentHash, ResponseBytes = bytes, PlanRevision = addition.PlanRevision,
-                    TargetMassG = addition.TargetMassG, AcceptanceG = addition.AcceptanceG,
-                },
-                recorded.Body, new EventAudit(recorded.ActorKeyId, recorded.StationId));
+            return new Template(additions[additionId], bytes, recorded.Body, new EventAudit(recorded.ActorKeyId, recorded.StationId));
         }
     }
 
@@ -56,7 +46,7 @@ public sealed class StoredAdditionWrite(BatchStore store, StoredAdditionWrite.Te
             BatchId = batchId, AdditionId = string.Create(CultureInfo.InvariantCulture, $"stored-{ordinal}"), Ordinal = ordinal,
             StepIndex = row.StepIndex, ReadingG = row.ReadingG, Stable = row.Stable, Source = row.Source, LotId = row.LotId,
             TrueMassG = row.TrueMassG, WithinWindow = row.WithinWindow, RecordedAt = TimeText.Format(at), ContentHash = row.ContentHash,
-            ResponseBytes = row.ResponseBytes, PlanRevision = row.PlanRevision, TargetMassG = row.TargetMassG, AcceptanceG = row.AcceptanceG,
+            ResponseBytes = template.ResponseBytes, PlanRevision = row.PlanRevision, TargetMassG = row.TargetMassG, AcceptanceG = row.AcceptanceG,
         };
         var outcome = await store.TryAppendAdditionAsync(addition, _version, null, template.EventBody, at, template.Audit, cancellationToken);
         _version = outcome.Written
