@@ -12,7 +12,26 @@ namespace GelDispense.Agent.Service;
 public static class ServiceFaults
 {
     public static bool IsTransient(RpcException ex) =>
-        ex.StatusCode is StatusCode.Unavailable or StatusCode.DeadlineExceeded or StatusCode.ResourceExhausted;
+        ex.StatusCode is StatusCode.Unavailable or StatusCode.DeadlineExceeded or StatusCode.ResourceExhausted || IsBrokenConnection(ex);
+
+    /// <summary>
+    /// A status the client made up because the connection failed under the call, not one the service sent.
+    /// Grpc.Net.Client reports some of these as Internal: a call sent as the service shuts down, on a connection it has
+    /// just closed with GOAWAY, fails with "The HTTP/2 server closed the connection". The HTTP or I/O error is then the
+    /// status's debug exception, which a status read from the service's trailers never has.
+    /// </summary>
+    public static bool IsBrokenConnection(RpcException ex)
+    {
+        for (var cause = ex.Status.DebugException; cause is not null; cause = cause.InnerException)
+        {
+            if (cause is HttpRequestException or IOException)
+            {
+                return true;
+            }
+        }
+
+        return false;
+    }
 
     /// <summary>
     /// The service refuses the caller, not the request: a missing, wrong or revoked key, or a key for another station.

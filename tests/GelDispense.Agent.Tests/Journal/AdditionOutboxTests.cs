@@ -101,6 +101,23 @@ public sealed class AdditionOutboxTests : TempDirectoryTest
     }
 
     [Fact]
+    public async Task An_entry_whose_connection_closes_under_its_call_stays_pending_and_is_not_rejected()
+    {
+        await using var peer = new ClosingHttp2Peer();
+        using var channel = GrpcChannel.ForAddress(peer.Address);
+        using var journal = AdditionJournal.Open(JournalFile, TimeProvider.System);
+        var entry = journal.AppendPending(new NewAddition(Guid.CreateVersion7(), "b-closing", 0, 12.5, "balance", "lot-c1"));
+        var link = new ServiceLink(channel.CreateCallInvoker(), "closing", StationRig.QuickLink, TimeProvider.System);
+
+        var report = await new AdditionOutbox(journal, link).FlushAsync(default);
+
+        Assert.False(report.Complete);
+        Assert.Equal(1, report.StillPending);
+        Assert.Equal(entry.AdditionId, Assert.Single(journal.Pending()).AdditionId);
+        Assert.True(peer.CallsTaken >= 1);
+    }
+
+    [Fact]
     public async Task A_refused_entry_is_kept_as_rejected_with_the_reason_and_does_not_hold_back_later_ones()
     {
         await using var bench = await ServiceBench.StartAsync(DatabaseFile);

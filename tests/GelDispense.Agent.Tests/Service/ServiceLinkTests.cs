@@ -12,7 +12,7 @@ using Polly.CircuitBreaker;
 
 namespace GelDispense.Agent.Tests.Service;
 
-/// <summary>The Polly pipeline around real gRPC calls: nothing listening, a silent peer, and the real service refusing.</summary>
+/// <summary>The Polly pipeline around real gRPC calls: nothing listening, a silent peer, a peer closing the connection under a call, and the real service refusing.</summary>
 [Collection(StationCollection.Name)]
 public sealed class ServiceLinkTests : TempDirectoryTest
 {
@@ -73,6 +73,36 @@ public sealed class ServiceLinkTests : TempDirectoryTest
         Assert.Equal(StatusCode.DeadlineExceeded, ex.StatusCode);
         Assert.Equal(1 + Settings.RetryAttempts, counter.Attempts);
         Assert.Equal(ServiceStatus.Offline, link.Status);
+    }
+
+    [Fact]
+    public async Task A_call_whose_connection_the_service_closes_under_it_is_retried_then_reported_offline()
+    {
+        // A plain channel, as the tests' bench uses: it reports this close as Internal, not Unavailable.
+        await using var peer = new ClosingHttp2Peer();
+        using var channel = GrpcChannel.ForAddress(peer.Address);
+        var counter = new AttemptCounter();
+        var link = new ServiceLink(channel.Intercept(counter), "closing", Settings, TimeProvider.System);
+
+        var ex = await Assert.ThrowsAsync<RpcException>(() => link.RecordAdditionAsync(Request, default));
+
+        // gRPC's HTTP/2 protocol maps a stream ended with NO_ERROR to INTERNAL (grpc/grpc doc/PROTOCOL-HTTP2.md, "Errors", recalled).
+        Assert.Equal(StatusCode.Internal, ex.StatusCode);
+        Assert.True(ServiceFaults.IsBrokenConnection(ex));
+        Assert.True(ServiceFaults.IsUnreachable(ex));
+        Assert.Equal(1 + Settings.RetryAttempts, counter.Attempts);
+        Assert.Equal(1 + Settings.RetryAttempts, peer.CallsTaken);
+        Assert.Equal(ServiceStatus.Offline, link.Status);
+    }
+
+    [Fact]
+    public void An_internal_error_the_service_sends_is_its_answer_and_not_a_broken_connection()
+    {
+        var sent = new RpcException(new Status(StatusCode.Internal, "the service failed"));
+        var unreadable = new RpcException(new Status(StatusCode.Internal, "Failed to deserialize response message.", new InvalidOperationException("bad bytes")));
+
+        Assert.False(ServiceFaults.IsUnreachable(sent));
+        Assert.False(ServiceFaults.IsUnreachable(unreadable));
     }
 
     [Fact]
