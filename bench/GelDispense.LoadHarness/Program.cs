@@ -1,3 +1,4 @@
+using System.Runtime.InteropServices;
 using GelDispense.Contracts.V1;
 using GelDispense.Service.Tests.Infrastructure;
 using GelDispense.Service.Storage;
@@ -33,14 +34,23 @@ public static class Program
             $"warm-up passes of {options.Warmup.TotalSeconds:0} s per scenario until the JIT settles (at most {options.MaxWarmup.TotalSeconds:0} s), at most {options.MaxRequests} requests per scenario; service in process on 127.0.0.1 " +
             $"with {(options.Ingest ? "PostgreSQL" : "SQLite in a temp dir")}; load average before: {LoadAverage()}.");
         var workload = DemoWorkload.Load();
-        return options.Ingest ? await IngestAsync(options, workload) : await PlansAsync(options, workload);
+        try
+        {
+            return options.Ingest ? await IngestAsync(options, workload) : await PlansAsync(options, workload);
+        }
+        catch (OperationCanceledException) when (RunStop.Signalled)
+        {
+            // The using blocks have run by now: the service is stopped and a throwaway cluster and the temp files deleted.
+            await Console.Error.WriteLineAsync("stopped by Ctrl+C or SIGTERM before the run ended: no figures.");
+            return 130;
+        }
     }
 
     /// <summary>The service on SQLite: plans against the no-op on REST and gRPC, and the latency of recording additions.</summary>
     private static async Task<int> PlansAsync(HarnessOptions options, DemoWorkload workload)
     {
         await using var service = await InProcessService.StartAsync();
-        using var stop = StopOnCtrlC();
+        using var stop = new RunStop();
 
         var (rest, grpc, key) = (service.RestAddress, service.GrpcAddress, service.ApiKey);
         var scenarios = new List<Scenario>();
@@ -73,13 +83,14 @@ public static class Program
     /// <summary>The service on PostgreSQL (a throwaway cluster unless --postgres names one), stations against raw inserts.</summary>
     private static async Task<int> IngestAsync(HarnessOptions options, DemoWorkload workload)
     {
+        // First, so that a signal while the cluster starts still ends in its cleanup.
+        using var stop = new RunStop();
         // The cluster allows 200 connections: the service's pool, one per raw loop and the storage-write baseline's pool.
         await using var cluster = options.Postgres is null ? await LocalPostgres.StartAsync() : null;
         var connectionString = options.Postgres ?? cluster!.ConnectionString;
         await using var service = await InProcessService.StartAsync(connectionString);
         // The storage-write baseline's own pool, with the service's settings (PostgresDatabase.WithPoolDefaults).
         await using var database = new PostgresDatabase(connectionString, TimeProvider.System);
-        using var stop = StopOnCtrlC();
         var scenarios = await IngestScenarios.CreateAsync(service, connectionString, new BatchStore(database), workload, options.Stations);
         return await RunAsync(scenarios, options, stop.Token);
     }
@@ -103,15 +114,40 @@ public static class Program
     private static MethodDescriptor Method(ServiceDescriptor service, string name) =>
         service.FindMethodByName(name) ?? throw new InvalidOperationException($"{service.FullName} has no method {name}.");
 
-    private static CancellationTokenSource StopOnCtrlC()
+    /// <summary>
+    /// Ctrl+C or SIGTERM (from <c>timeout</c> or a CI runner) ends the run early, and the service, a throwaway cluster
+    /// and the temporary files are still cleaned up. Without SIGTERM here the in-process service's host would take
+    /// the signal alone, stop the service and leave the harness measuring errors.
+    /// </summary>
+    private sealed class RunStop : IDisposable
     {
-        var stop = new CancellationTokenSource();
-        Console.CancelKeyPress += (_, e) =>
+        private static volatile bool _signalled;
+        private readonly CancellationTokenSource _stop = new();
+        private readonly PosixSignalRegistration[] _signals;
+
+        public RunStop() => _signals = [PosixSignalRegistration.Create(PosixSignal.SIGINT, Stop), PosixSignalRegistration.Create(PosixSignal.SIGTERM, Stop)];
+
+        /// <summary>Whether a signal asked the run to stop.</summary>
+        public static bool Signalled => _signalled;
+
+        public CancellationToken Token => _stop.Token;
+
+        public void Dispose()
         {
-            e.Cancel = true;
-            stop.Cancel();
-        };
-        return stop;
+            foreach (var signal in _signals)
+            {
+                signal.Dispose();
+            }
+
+            _stop.Dispose();
+        }
+
+        private void Stop(PosixSignalContext context)
+        {
+            context.Cancel = true;
+            _signalled = true;
+            _stop.Cancel();
+        }
     }
 
     private static int Report(IReadOnlyList<LoadResult> results)
