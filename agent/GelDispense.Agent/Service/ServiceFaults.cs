@@ -5,9 +5,9 @@ using Polly.CircuitBreaker;
 namespace GelDispense.Agent.Service;
 
 /// <summary>
-/// Sorts failures of a call. Transient ones (the service is down, slow or shedding load) are retried and, when
-/// retries run out, mean "offline": the addition stays pending in the journal. Anything else is the service's
-/// considered answer (bad input, a closed batch) and is never retried.
+/// Sorts failures of a call. Transient ones (the service is down, slow or shedding load, or the connection broke under
+/// the call) are retried and, when retries run out, mean "offline": the addition stays pending in the journal.
+/// Anything else is the service's considered answer (bad input, a closed batch) and is never retried.
 /// </summary>
 public static class ServiceFaults
 {

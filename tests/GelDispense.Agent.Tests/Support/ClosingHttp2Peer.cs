@@ -60,7 +60,7 @@ public sealed class ClosingHttp2Peer : IAsyncDisposable
             {
                 await TakeOneCallAsync(client.GetStream(), cancellationToken);
             }
-            catch (IOException)
+            catch (Exception e) when (e is IOException or SocketException)
             {
                 // The client gave up on this connection first; wait for the next one.
             }
