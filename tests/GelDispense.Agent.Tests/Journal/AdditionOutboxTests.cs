@@ -103,8 +103,9 @@ public sealed class AdditionOutboxTests : TempDirectoryTest
     [Fact]
     public async Task An_entry_whose_connection_closes_under_its_call_stays_pending_and_is_not_rejected()
     {
+        // The agent's own channel, which reports the first such call as Internal too.
         await using var peer = new ClosingHttp2Peer();
-        using var channel = GrpcChannel.ForAddress(peer.Address);
+        using var channel = ServiceChannel.Create(peer.Address, StationRig.QuickLink);
         using var journal = AdditionJournal.Open(JournalFile, TimeProvider.System);
         var entry = journal.AppendPending(new NewAddition(Guid.CreateVersion7(), "b-closing", 0, 12.5, "balance", "lot-c1"));
         var link = new ServiceLink(channel.CreateCallInvoker(), "closing", StationRig.QuickLink, TimeProvider.System);
