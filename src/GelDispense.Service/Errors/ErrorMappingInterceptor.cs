@@ -1,3 +1,4 @@
+using System.Data.Common;
 using GelDispense.Chemistry.Errors;
 using Google.Protobuf;
 using Grpc.Core;
@@ -7,9 +8,9 @@ namespace GelDispense.Service.Errors;
 
 /// <summary>
 /// Turns every exception out of a handler into one <see cref="ApiProblem"/>: typed input errors become
-/// INVALID_ARGUMENT with field violations, <see cref="ApiException"/> keeps its code, anything else is logged
-/// and reported as INTERNAL without internals. Runs for native gRPC and for transcoded REST calls alike, and first
-/// refuses a request with U+0000 in any text field.
+/// INVALID_ARGUMENT with field violations, <see cref="ApiException"/> keeps its code, a transient database failure
+/// becomes UNAVAILABLE, anything else is logged and reported as INTERNAL without internals. Runs for native gRPC
+/// and for transcoded REST calls alike, and first refuses a request with U+0000 in any text field.
 /// </summary>
 public sealed class ErrorMappingInterceptor(ILogger<ErrorMappingInterceptor> logger) : Interceptor
 {
@@ -59,6 +60,7 @@ public sealed class ErrorMappingInterceptor(ILogger<ErrorMappingInterceptor> log
             ApiException refused => new ApiProblem(refused.Code, refused.Message, refused.Errors),
             OperationCanceledException when context.CancellationToken.IsCancellationRequested =>
                 new ApiProblem(StatusCode.Cancelled, "The call was cancelled.", []),
+            DbException { IsTransient: true } => Unavailable(exception, context),
             _ => null,
         };
         if (problem is null)
@@ -69,5 +71,16 @@ public sealed class ErrorMappingInterceptor(ILogger<ErrorMappingInterceptor> log
 
         context.GetHttpContext().Items[ApiProblem.ItemKey] = problem;
         return problem.ToRpcException();
+    }
+
+    /// <summary>
+    /// The database failed for a moment (a dropped connection, a restart, an exhausted pool): UNAVAILABLE, which a
+    /// station retries and holds the addition pending for, where INTERNAL would read as a considered refusal. Nothing
+    /// was half written: every write is one transaction, and an addition's id makes its retry count once.
+    /// </summary>
+    private ApiProblem Unavailable(Exception exception, ServerCallContext context)
+    {
+        logger.LogWarning(exception, "Database unavailable in {Method}", context.Method);
+        return new ApiProblem(StatusCode.Unavailable, "The database is unavailable for the moment; retry the call.", []);
     }
 }

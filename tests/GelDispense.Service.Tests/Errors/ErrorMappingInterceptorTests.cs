@@ -1,0 +1,45 @@
+using GelDispense.Service.Tests.Infrastructure;
+using Npgsql;
+
+namespace GelDispense.Service.Tests.Errors;
+
+[Collection(ApiCollection.Name)]
+public sealed class ErrorMappingInterceptorTests(ApiHosts hosts)
+{
+    [Theory, PostgresEngine]
+    public async Task A_database_connection_cut_under_an_addition_answers_503_and_the_retry_records_it_once(string engine)
+    {
+        await using var host = await hosts.ServiceHostOnNewDatabaseAsync(engine);
+        var client = host.CreateClient();
+        var batch = await Demo.StartBatchAsync(client);
+        var id = (string)batch["id"]!;
+        var addition = Demo.Addition("cut-1", 0, (double)batch["steps"]![0]!["targetReadingG"]!);
+
+        // As a database restart or a failover does: every backend serving the service is ended under its pool.
+        Assert.True(await TerminateServiceBackendsAsync(host.ConnectionString) > 0);
+        var refused = await Demo.PostAsync(client, $"/v1/batches/{id}/additions", addition, 503);
+        var recorded = await Demo.PostAsync(client, $"/v1/batches/{id}/additions", addition);
+
+        Assert.Equal("urn:geldispense:problem:unavailable", (string)refused["type"]!);
+        Assert.Equal("cut-1", (string)recorded["addition"]!["additionId"]!);
+        var stored = await Demo.GetAsync(client, $"/v1/batches/{id}");
+        Assert.Equal(["cut-1"], stored["additions"]!.AsArray().Select(a => (string)a!["additionId"]!));
+    }
+
+    private static async Task<int> TerminateServiceBackendsAsync(string connectionString)
+    {
+        await using var admin = new NpgsqlConnection(new NpgsqlConnectionStringBuilder(connectionString) { Pooling = false }.ConnectionString);
+        await admin.OpenAsync();
+        // In the select list, so only the rows the WHERE keeps are ended (an AND in the WHERE has no order of evaluation).
+        await using var terminate = new NpgsqlCommand(
+            "SELECT pg_terminate_backend(pid) FROM pg_stat_activity WHERE datname = current_database() AND pid <> pg_backend_pid() AND backend_type = 'client backend'", admin);
+        await using var ended = await terminate.ExecuteReaderAsync();
+        var count = 0;
+        while (await ended.ReadAsync())
+        {
+            count += ended.GetBoolean(0) ? 1 : 0;
+        }
+
+        return count;
+    }
+}
