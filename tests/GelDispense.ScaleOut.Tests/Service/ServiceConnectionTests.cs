@@ -9,7 +9,8 @@ namespace GelDispense.ScaleOut.Tests.Service;
 
 /// <summary>
 /// The agent's service connection opened from a station config naming replica A as its service and B as standby:
-/// A is killed while the station is still adding, and the rest of the batch goes through B on the same database.
+/// A is killed or stopped while the station is still adding, and the rest of the batch goes through B on the same
+/// database.
 /// </summary>
 [Collection(ScaleOutCollection.Name)]
 public sealed class ServiceConnectionTests(PostgresCluster cluster)
@@ -27,10 +28,12 @@ public sealed class ServiceConnectionTests(PostgresCluster cluster)
         MaxReconnectBackoff = TimeSpan.FromMilliseconds(500),
     };
 
-    [Fact]
-    public async Task When_replica_A_dies_mid_batch_the_link_carries_on_through_B_and_no_addition_is_lost_or_doubled()
+    [Theory]
+    [InlineData("killed")]
+    [InlineData("stopped")]
+    public async Task When_replica_A_goes_away_mid_batch_the_link_carries_on_through_B_and_no_addition_is_lost_or_doubled(string how)
     {
-        await using var pair = await ReplicaPair.StartAsync(cluster.Server, "scaleout_failover");
+        await using var pair = await ReplicaPair.StartAsync(cluster.Server, $"scaleout_failover_{how}");
         var config = new StationConfig { ServiceAddress = pair.A.Grpc.ToString(), StandbyAddresses = [pair.B.Grpc.ToString()], ApiKey = pair.AdminKey };
         using var connection = ServiceConnection.Open(config, Quick, TimeProvider.System);
         var link = connection.Link;
@@ -56,10 +59,11 @@ public sealed class ServiceConnectionTests(PostgresCluster cluster)
             }
         });
         await halfway.Task;
-        await pair.A.KillAsync();
-        var killedAt = DateTime.UtcNow;
+        // Killed: a crash, no drain. Stopped: SIGTERM, as a rolling update does; A drains and closes its connections.
+        await (how == "killed" ? pair.A.KillAsync() : pair.A.StopAsync());
+        var goneAt = DateTime.UtcNow;
         await station;
-        Console.WriteLine($"failover: the second half of the batch went through B {(DateTime.UtcNow - killedAt).TotalSeconds:0.00} s after A was killed");
+        Console.WriteLine($"failover: the second half of the batch went through B {(DateTime.UtcNow - goneAt).TotalSeconds:0.00} s after A was {how}");
 
         Assert.Equal(pair.B.Grpc, connection.Current);
         Assert.Equal(pair.A.Grpc, servedBy[0]);

@@ -1,5 +1,6 @@
 using System.Collections.Concurrent;
 using System.Diagnostics;
+using System.Globalization;
 using System.Net;
 using System.Net.Sockets;
 
@@ -84,6 +85,21 @@ internal sealed class ServiceProcess : IAsyncDisposable
         }
 
         await _process.WaitForExitAsync();
+    }
+
+    /// <summary>
+    /// Sends SIGTERM and waits for the process to end, as Kubernetes stops a pod in a rolling update: the host drains
+    /// the calls in flight and closes its connections with GOAWAY.
+    /// </summary>
+    public async Task StopAsync()
+    {
+        using (var signal = Process.Start("kill", ["-TERM", _process.Id.ToString(CultureInfo.InvariantCulture)]))
+        {
+            await signal.WaitForExitAsync();
+        }
+
+        using var patience = new CancellationTokenSource(TimeSpan.FromSeconds(30));
+        await _process.WaitForExitAsync(patience.Token);
     }
 
     public async ValueTask DisposeAsync()
