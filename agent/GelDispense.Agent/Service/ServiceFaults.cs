@@ -1,3 +1,4 @@
+using System.Net.Sockets;
 using Google.Rpc;
 using Grpc.Core;
 using Polly.CircuitBreaker;
@@ -25,6 +26,32 @@ public static class ServiceFaults
         for (var cause = ex.Status.DebugException; cause is not null; cause = cause.InnerException)
         {
             if (cause is HttpRequestException or IOException)
+            {
+                return true;
+            }
+        }
+
+        return false;
+    }
+
+    /// <summary>
+    /// The call never reached the service: the connection could not be made (refused, unreachable, no such host, or
+    /// it timed out). Only then is a call that is not idempotent safe to repeat. An UNAVAILABLE the service sends
+    /// itself (its database failed for a moment) may come after it acted, and a connection broken under a call may
+    /// have carried it.
+    /// </summary>
+    public static bool CouldNotConnect(RpcException ex)
+    {
+        if (ex.StatusCode != StatusCode.Unavailable)
+        {
+            return false;
+        }
+
+        for (var cause = ex.Status.DebugException; cause is not null; cause = cause.InnerException)
+        {
+            if (cause is SocketException { SocketErrorCode: SocketError.ConnectionRefused or SocketError.HostNotFound or SocketError.HostUnreachable
+                    or SocketError.NetworkUnreachable or SocketError.TimedOut or SocketError.TryAgain }
+                || cause is HttpRequestException { HttpRequestError: HttpRequestError.ConnectionError or HttpRequestError.NameResolutionError })
             {
                 return true;
             }

@@ -19,11 +19,12 @@ public static class ServiceResilience
         Build(settings, time, ServiceFaults.IsTransient);
 
     /// <summary>
-    /// For calls that are not idempotent (starting a batch): only Unavailable is retried, the status of a call that
-    /// could not connect. A deadline may strike after the service acted, so retrying it could start a second batch.
+    /// For calls that are not idempotent (starting a batch): only a call that could not connect is retried
+    /// (<see cref="ServiceFaults.CouldNotConnect"/>). A deadline, a connection broken under the call or an UNAVAILABLE
+    /// from the service itself may come after the service acted, so retrying them could start a second batch.
     /// </summary>
     public static ResiliencePipeline NotIdempotent(ServiceLinkSettings settings, TimeProvider time) =>
-        Build(settings, time, ex => ex.StatusCode == StatusCode.Unavailable);
+        Build(settings, time, ServiceFaults.CouldNotConnect);
 
     private static ResiliencePipeline Build(ServiceLinkSettings settings, TimeProvider time, Func<RpcException, bool> retryable) =>
         new ResiliencePipelineBuilder { TimeProvider = time }

@@ -26,6 +26,8 @@ public sealed class ServiceLinkTests : TempDirectoryTest
 
     private static readonly RecordAdditionRequest Request = new() { BatchId = "b-1", AdditionId = "a-1", StepIndex = 0, ReadingG = 1, Stable = true };
 
+    private static readonly CreateBatchRequest BatchRequest = new() { StationId = "bench-1" };
+
     [Fact]
     public async Task An_unreachable_service_is_retried_then_reported_offline_with_the_transient_status()
     {
@@ -93,6 +95,50 @@ public sealed class ServiceLinkTests : TempDirectoryTest
         Assert.Equal(1 + Settings.RetryAttempts, counter.Attempts);
         Assert.Equal(1 + Settings.RetryAttempts, peer.CallsTaken);
         Assert.Equal(ServiceStatus.Offline, link.Status);
+    }
+
+    [Fact]
+    public async Task A_batch_start_that_cannot_connect_is_retried()
+    {
+        using var channel = ServiceChannel.Create(new Uri($"http://127.0.0.1:{FreePort()}"), Settings);
+        var counter = new AttemptCounter();
+        var link = new ServiceLink(channel.Intercept(counter), "nowhere", Settings, TimeProvider.System);
+
+        var ex = await Assert.ThrowsAsync<RpcException>(() => link.CreateBatchAsync(BatchRequest, default));
+
+        Assert.True(ServiceFaults.CouldNotConnect(ex));
+        Assert.Equal(1 + Settings.RetryAttempts, counter.Attempts);
+    }
+
+    [Fact]
+    public async Task A_batch_start_whose_connection_closes_under_it_is_not_repeated_since_the_service_may_have_acted()
+    {
+        await using var peer = new ClosingHttp2Peer();
+        using var channel = ServiceChannel.Create(peer.Address, Settings);
+        var counter = new AttemptCounter();
+        var link = new ServiceLink(channel.Intercept(counter), "closing", Settings, TimeProvider.System);
+
+        var ex = await Assert.ThrowsAsync<RpcException>(() => link.CreateBatchAsync(BatchRequest, default));
+
+        Assert.False(ServiceFaults.CouldNotConnect(ex));
+        Assert.True(ServiceFaults.IsUnreachable(ex));
+        Assert.Equal(1, counter.Attempts);
+        Assert.Equal(1, peer.CallsTaken);
+    }
+
+    [Fact]
+    public async Task A_batch_start_the_service_answers_unavailable_is_not_repeated_since_it_may_have_acted()
+    {
+        await using var server = await UnavailableBatchService.StartAsync();
+        using var channel = ServiceChannel.Create(server.Address, Settings);
+        var link = new ServiceLink(channel.CreateCallInvoker(), "unavailable", Settings, TimeProvider.System);
+
+        var ex = await Assert.ThrowsAsync<RpcException>(() => link.CreateBatchAsync(BatchRequest, default));
+
+        Assert.Equal(StatusCode.Unavailable, ex.StatusCode);
+        Assert.True(ServiceFaults.IsUnreachable(ex));
+        Assert.False(ServiceFaults.CouldNotConnect(ex));
+        Assert.Equal(1, server.StartsReceived);
     }
 
     [Fact]
