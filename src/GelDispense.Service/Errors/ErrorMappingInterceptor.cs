@@ -1,5 +1,6 @@
 using System.Data.Common;
 using GelDispense.Chemistry.Errors;
+using GelDispense.Service.Storage;
 using Google.Protobuf;
 using Grpc.Core;
 using Grpc.Core.Interceptors;
@@ -12,7 +13,7 @@ namespace GelDispense.Service.Errors;
 /// becomes UNAVAILABLE, anything else is logged and reported as INTERNAL without internals. Runs for native gRPC
 /// and for transcoded REST calls alike, and first refuses a request with U+0000 in any text field.
 /// </summary>
-public sealed class ErrorMappingInterceptor(ILogger<ErrorMappingInterceptor> logger) : Interceptor
+public sealed class ErrorMappingInterceptor(ILogger<ErrorMappingInterceptor> logger, IDatabase database) : Interceptor
 {
     public override async Task<TResponse> UnaryServerHandler<TRequest, TResponse>(
         TRequest request, ServerCallContext context, UnaryServerMethod<TRequest, TResponse> continuation)
@@ -60,7 +61,7 @@ public sealed class ErrorMappingInterceptor(ILogger<ErrorMappingInterceptor> log
             ApiException refused => new ApiProblem(refused.Code, refused.Message, refused.Errors),
             OperationCanceledException when context.CancellationToken.IsCancellationRequested =>
                 new ApiProblem(StatusCode.Cancelled, "The call was cancelled.", []),
-            DbException { IsTransient: true } => Unavailable(exception, context),
+            DbException failed when database.IsTransient(failed) => Unavailable(exception, context),
             _ => null,
         };
         if (problem is null)

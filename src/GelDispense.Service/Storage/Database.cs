@@ -25,6 +25,8 @@ public abstract class Database : IDatabase
 
     public abstract bool IsConflict(DbException exception);
 
+    public virtual bool IsTransient(DbException exception) => exception.IsTransient;
+
     public virtual ValueTask<IDisposable> EnterWriteAsync(CancellationToken cancellationToken) => ValueTask.FromResult(NoTurn.Instance);
 
     public abstract string AnyOf(string column, string parameter);

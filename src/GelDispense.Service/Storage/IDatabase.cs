@@ -25,4 +25,7 @@ public interface IDatabase
 
     /// <summary>True when a write conflicted with a concurrent one and should be retried from a fresh read.</summary>
     bool IsConflict(DbException exception);
+
+    /// <summary>True when the database failed for a moment (a dropped connection, a restart, a lock held too long) and the call may be retried.</summary>
+    bool IsTransient(DbException exception);
 }

@@ -4,9 +4,9 @@ using Microsoft.Data.Sqlite;
 namespace GelDispense.Service.Storage;
 
 /// <summary>
-/// The embedded default. WAL lets readers run beside the single writer; the busy timeout makes writers
-/// queue instead of failing, and Microsoft.Data.Sqlite begins transactions IMMEDIATE, so a writer holds
-/// the lock from its first statement.
+/// The embedded default. WAL lets readers run beside the single writer; the busy timeout (Microsoft.Data.Sqlite's
+/// 30 s unless the connection string sets <c>Default Timeout</c>) makes writers queue instead of failing, and
+/// Microsoft.Data.Sqlite begins transactions IMMEDIATE, so a writer holds the lock from its first statement.
 /// </summary>
 public sealed class SqliteDatabase : Database
 {
@@ -17,7 +17,7 @@ public sealed class SqliteDatabase : Database
     public SqliteDatabase(string connectionString, TimeProvider time)
         : base(time)
     {
-        var builder = new SqliteConnectionStringBuilder(connectionString) { ForeignKeys = true, DefaultTimeout = 30 };
+        var builder = new SqliteConnectionStringBuilder(connectionString) { ForeignKeys = true };
         if (builder.Mode != SqliteOpenMode.Memory && !string.IsNullOrEmpty(builder.DataSource) && builder.DataSource != ":memory:")
         {
             var directory = Path.GetDirectoryName(Path.GetFullPath(builder.DataSource));
@@ -70,6 +70,10 @@ public sealed class SqliteDatabase : Database
 
     // SQLITE_CONSTRAINT (19): a unique key taken by a concurrent writer between our read and our write.
     public override bool IsConflict(DbException exception) => exception is SqliteException { SqliteErrorCode: 19 };
+
+    // SQLITE_BUSY (5) and SQLITE_LOCKED (6): another process held the file past the command timeout. Microsoft.Data.Sqlite
+    // retries them until then but does not mark them transient.
+    public override bool IsTransient(DbException exception) => exception is SqliteException { SqliteErrorCode: 5 or 6 } || base.IsTransient(exception);
 
     private sealed class Turn(SemaphoreSlim writer) : IDisposable
     {
