@@ -14,6 +14,14 @@ public sealed record ApiProblem(Grpc.Core.StatusCode Code, string Title, IReadOn
     /// <summary>Key under which the interceptor leaves the problem in HttpContext.Items for the REST renderer.</summary>
     public const string ItemKey = "GelDispense.ApiProblem";
 
+    /// <summary>
+    /// The database failed for a moment (a dropped connection, a restart, an exhausted pool, a locked file):
+    /// UNAVAILABLE, which a station retries and keeps the addition pending for, where INTERNAL would read as a
+    /// considered refusal. Nothing was half written: every write is one transaction, and an addition's id makes its
+    /// retry count once.
+    /// </summary>
+    public static readonly ApiProblem DatabaseUnavailable = new(Grpc.Core.StatusCode.Unavailable, "The database is unavailable for the moment; retry the call.", []);
+
     /// <summary>HTTP status for REST: conflicts are 409 (transcoding alone would answer FAILED_PRECONDITION with 400).</summary>
     public int HttpStatus => Code switch
     {

@@ -61,7 +61,7 @@ public sealed class ErrorMappingInterceptor(ILogger<ErrorMappingInterceptor> log
             ApiException refused => new ApiProblem(refused.Code, refused.Message, refused.Errors),
             OperationCanceledException when context.CancellationToken.IsCancellationRequested =>
                 new ApiProblem(StatusCode.Cancelled, "The call was cancelled.", []),
-            DbException failed when database.IsTransient(failed) => Unavailable(exception, context),
+            DbException failed when database.IsTransient(failed) => Unavailable(failed, context),
             _ => null,
         };
         if (problem is null)
@@ -74,14 +74,9 @@ public sealed class ErrorMappingInterceptor(ILogger<ErrorMappingInterceptor> log
         return problem.ToRpcException();
     }
 
-    /// <summary>
-    /// The database failed for a moment (a dropped connection, a restart, an exhausted pool): UNAVAILABLE, which a
-    /// station retries and holds the addition pending for, where INTERNAL would read as a considered refusal. Nothing
-    /// was half written: every write is one transaction, and an addition's id makes its retry count once.
-    /// </summary>
-    private ApiProblem Unavailable(Exception exception, ServerCallContext context)
+    private ApiProblem Unavailable(DbException exception, ServerCallContext context)
     {
         logger.LogWarning(exception, "Database unavailable in {Method}", context.Method);
-        return new ApiProblem(StatusCode.Unavailable, "The database is unavailable for the moment; retry the call.", []);
+        return ApiProblem.DatabaseUnavailable;
     }
 }

@@ -11,6 +11,7 @@ public static class EndpointExtensions
     {
         app.UseGelDispenseRequestLogging();
         app.UseMiddleware<RestProblemMiddleware>();
+        app.UseMiddleware<DatabaseOutageMiddleware>();
         app.UseSwagger();
         app.UseSwaggerUI(options => options.DocumentTitle = "GelDispense API");
         app.UseGelDispenseSecurity();

@@ -17,17 +17,6 @@ public sealed class ServiceConnectionTests(PostgresCluster cluster)
 {
     private const int Additions = 20;
 
-    private static readonly ServiceLinkSettings Quick = new()
-    {
-        CallDeadline = TimeSpan.FromSeconds(3),
-        RetryAttempts = 3,
-        RetryFirstDelay = TimeSpan.FromMilliseconds(50),
-        RetryMaxDelay = TimeSpan.FromMilliseconds(200),
-        ConnectTimeout = TimeSpan.FromSeconds(1),
-        InitialReconnectBackoff = TimeSpan.FromMilliseconds(100),
-        MaxReconnectBackoff = TimeSpan.FromMilliseconds(500),
-    };
-
     [Theory]
     [InlineData("killed")]
     [InlineData("stopped")]
@@ -35,7 +24,7 @@ public sealed class ServiceConnectionTests(PostgresCluster cluster)
     {
         await using var pair = await ReplicaPair.StartAsync(cluster.Server, $"scaleout_failover_{how}");
         var config = new StationConfig { ServiceAddress = pair.A.Grpc.ToString(), StandbyAddresses = [pair.B.Grpc.ToString()], ApiKey = pair.AdminKey };
-        using var connection = ServiceConnection.Open(config, Quick, TimeProvider.System);
+        using var connection = ServiceConnection.Open(config, QuickLink.Settings, TimeProvider.System);
         var link = connection.Link;
         var batch = await link.CreateBatchAsync(TwoReplicasTests.DemoRequest(), default);
         var planned = PlannedAddition.Split(batch, Additions, "failover");
@@ -78,7 +67,7 @@ public sealed class ServiceConnectionTests(PostgresCluster cluster)
     [Fact]
     public void A_link_without_any_address_is_refused_naming_the_field()
     {
-        var ex = Assert.Throws<ArgumentException>(() => new FailoverCallInvoker([], Quick));
+        var ex = Assert.Throws<ArgumentException>(() => new FailoverCallInvoker([], QuickLink.Settings));
 
         Assert.Contains("addresses", ex.Message, StringComparison.Ordinal);
     }

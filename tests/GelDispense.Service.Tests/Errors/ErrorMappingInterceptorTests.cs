@@ -53,7 +53,8 @@ public sealed class ErrorMappingInterceptorTests(ApiHosts hosts)
         Assert.Equal(["locked-1"], stored["additions"]!.AsArray().Select(a => (string)a!["additionId"]!));
     }
 
-    private static async Task<int> TerminateServiceBackendsAsync(string connectionString)
+    /// <summary>Ends every backend serving the database, as a restart or a failover does, under the service's pool.</summary>
+    internal static async Task<int> TerminateServiceBackendsAsync(string connectionString)
     {
         await using var admin = new NpgsqlConnection(new NpgsqlConnectionStringBuilder(connectionString) { Pooling = false }.ConnectionString);
         await admin.OpenAsync();

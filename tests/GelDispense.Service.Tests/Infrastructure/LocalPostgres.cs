@@ -1,6 +1,7 @@
 using System.Diagnostics;
 using System.Net;
 using System.Net.Sockets;
+using Npgsql;
 
 namespace GelDispense.Service.Tests.Infrastructure;
 
@@ -38,10 +39,24 @@ public sealed class LocalPostgres : IAsyncDisposable
         var port = FreePort();
         var cluster = new LocalPostgres(bin, dataDir, port);
         await cluster.RunAsync("initdb", $"-D {dataDir} -U postgres -A trust -E UTF8 --locale=C.UTF-8 --no-sync");
-        await cluster.RunAsync("pg_ctl", $"-D {dataDir} -l {dataDir}/server.log -s -w -t 30 -o \"-p {port} -k {dataDir} " +
-            "-c listen_addresses=127.0.0.1 -c fsync=off -c synchronous_commit=off -c full_page_writes=off -c max_connections=200\" start");
+        await cluster.ResumeAsync();
         return cluster;
     }
+
+    /// <summary>
+    /// Stops the server (fast shutdown: sessions are ended, as in a restart or a failover), keeping its data. This
+    /// process's pooled connections to it are dead from then on, so its pools are cleared for whoever connects next.
+    /// </summary>
+    public async Task PauseAsync()
+    {
+        await RunAsync("pg_ctl", $"-D {_dataDir} -m fast -s -w stop");
+        NpgsqlConnection.ClearAllPools();
+    }
+
+    /// <summary>Starts the server on its port and data, the first time or after <see cref="PauseAsync"/>.</summary>
+    public Task ResumeAsync() =>
+        RunAsync("pg_ctl", $"-D {_dataDir} -l {_dataDir}/server.log -s -w -t 30 -o \"-p {Port} -k {_dataDir} " +
+            "-c listen_addresses=127.0.0.1 -c fsync=off -c synchronous_commit=off -c full_page_writes=off -c max_connections=200\" start");
 
     public async ValueTask DisposeAsync()
     {
