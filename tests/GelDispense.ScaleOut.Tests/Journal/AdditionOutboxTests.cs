@@ -3,6 +3,7 @@ using GelDispense.Agent.Journal;
 using GelDispense.Agent.Service;
 using GelDispense.ScaleOut.Tests.ScaleOut;
 using GelDispense.ScaleOut.Tests.Support;
+using Microsoft.Data.Sqlite;
 
 namespace GelDispense.ScaleOut.Tests.Journal;
 
@@ -15,7 +16,10 @@ public sealed class AdditionOutboxTests(PostgresCluster cluster) : IDisposable
 {
     private const int Additions = 10;
 
-    private readonly string _journalFile = Path.Combine(Path.GetTempPath(), $"geldispense-journal-{Guid.NewGuid():N}.db");
+    // A directory of its own: the journal's SQLite file has companions (-wal, -shm) that must go with it.
+    private readonly string _journalDirectory = Directory.CreateTempSubdirectory("geldispense-journal-").FullName;
+
+    private string JournalFile => Path.Combine(_journalDirectory, "journal.db");
 
     [Fact]
     public async Task Additions_made_while_the_database_is_down_wait_in_the_journal_and_are_recorded_once_when_it_returns()
@@ -26,7 +30,7 @@ public sealed class AdditionOutboxTests(PostgresCluster cluster) : IDisposable
         var batch = await connection.Link.CreateBatchAsync(TwoReplicasTests.DemoRequest(), default);
         var planned = PlannedAddition.Split(batch, Additions, "down");
         var ids = planned.Select(_ => Guid.CreateVersion7()).ToArray();
-        using var journal = AdditionJournal.Open(_journalFile, TimeProvider.System);
+        using var journal = AdditionJournal.Open(JournalFile, TimeProvider.System);
         var outbox = new AdditionOutbox(journal, connection.Link);
         void Journal(int k) => outbox.Journal(new NewAddition(ids[k], batch.Id, planned[k].StepIndex, planned[k].ReadingG, "balance", planned[k].LotId));
 
@@ -53,14 +57,14 @@ public sealed class AdditionOutboxTests(PostgresCluster cluster) : IDisposable
         }
 
         // The replicas' pools still hold connections the restart ended; each fails once, so a flush may need a retry.
-        var flushes = 0;
-        FlushReport afterwards;
-        do
+        var afterwards = await outbox.FlushAsync(default);
+        var flushes = 1;
+        while (!afterwards.Complete && flushes < 20)
         {
+            await Task.Delay(250);
             afterwards = await outbox.FlushAsync(default);
             flushes++;
         }
-        while (!afterwards.Complete && flushes < 20 && await Pause());
 
         Console.WriteLine($"database down: {whileDown.StillPending} additions waited; {flushes} flush(es) after it returned ({whileDown.StoppedBecause})");
         Assert.False(whileDown.Complete);
@@ -72,11 +76,9 @@ public sealed class AdditionOutboxTests(PostgresCluster cluster) : IDisposable
         Assert.Equal(ids.Select(id => id.ToString()), recorded.Additions.Select(a => a.AdditionId));
     }
 
-    public void Dispose() => File.Delete(_journalFile);
-
-    private static async Task<bool> Pause()
+    public void Dispose()
     {
-        await Task.Delay(250);
-        return true;
+        SqliteConnection.ClearAllPools();
+        Directory.Delete(_journalDirectory, recursive: true);
     }
 }
