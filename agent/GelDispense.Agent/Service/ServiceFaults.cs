@@ -21,18 +21,7 @@ public static class ServiceFaults
     /// just closed with GOAWAY, fails with "The HTTP/2 server closed the connection". The HTTP or I/O error is then the
     /// status's debug exception, which a status read from the service's trailers never has.
     /// </summary>
-    public static bool IsBrokenConnection(RpcException ex)
-    {
-        for (var cause = ex.Status.DebugException; cause is not null; cause = cause.InnerException)
-        {
-            if (cause is HttpRequestException or IOException)
-            {
-                return true;
-            }
-        }
-
-        return false;
-    }
+    public static bool IsBrokenConnection(RpcException ex) => Causes(ex).Any(cause => cause is HttpRequestException or IOException);
 
     /// <summary>
     /// The call never reached the service: the connection could not be made (refused, unreachable, no such host, or
@@ -40,25 +29,11 @@ public static class ServiceFaults
     /// itself (its database failed for a moment) may come after it acted, and a connection broken under a call may
     /// have carried it.
     /// </summary>
-    public static bool CouldNotConnect(RpcException ex)
-    {
-        if (ex.StatusCode != StatusCode.Unavailable)
-        {
-            return false;
-        }
-
-        for (var cause = ex.Status.DebugException; cause is not null; cause = cause.InnerException)
-        {
-            if (cause is SocketException { SocketErrorCode: SocketError.ConnectionRefused or SocketError.HostNotFound or SocketError.HostUnreachable
-                    or SocketError.NetworkUnreachable or SocketError.TimedOut or SocketError.TryAgain }
-                || cause is HttpRequestException { HttpRequestError: HttpRequestError.ConnectionError or HttpRequestError.NameResolutionError })
-            {
-                return true;
-            }
-        }
-
-        return false;
-    }
+    public static bool CouldNotConnect(RpcException ex) =>
+        ex.StatusCode == StatusCode.Unavailable && Causes(ex).Any(cause =>
+            cause is SocketException { SocketErrorCode: SocketError.ConnectionRefused or SocketError.HostNotFound or SocketError.HostUnreachable
+                or SocketError.NetworkUnreachable or SocketError.TimedOut or SocketError.TryAgain }
+            || cause is HttpRequestException { HttpRequestError: HttpRequestError.ConnectionError or HttpRequestError.NameResolutionError });
 
     /// <summary>
     /// The service refuses the caller, not the request: a missing, wrong or revoked key, or a key for another station.
@@ -80,4 +55,13 @@ public static class ServiceFaults
         RpcException rpc => $"{rpc.StatusCode}: {rpc.Status.Detail}",
         _ => ex.Message,
     };
+
+    /// <summary>The client-side error a status was made from, and its inner errors; none for a status the service sent.</summary>
+    private static IEnumerable<Exception> Causes(RpcException ex)
+    {
+        for (var cause = ex.Status.DebugException; cause is not null; cause = cause.InnerException)
+        {
+            yield return cause;
+        }
+    }
 }

@@ -17,11 +17,11 @@ public sealed class DatabaseOutageMiddlewareTests(ApiHosts hosts)
         var restKey = await host.IssueKeyAsync(Roles.Lims);
         var grpcKey = await host.IssueKeyAsync(Roles.Lims);
 
-        Assert.True(await ErrorMappingInterceptorTests.TerminateServiceBackendsAsync(host.ConnectionString) > 0);
+        Assert.True(await RawDatabase.EndServiceBackendsAsync(host) > 0);
         var refused = await Demo.GetAsync(host.ClientWith(restKey), "/v1/batches?pageSize=1", 503);
         // Once the pool has dropped the ended connection, the same key is let in, on a new one.
         await Demo.GetAsync(host.ClientWith(restKey), "/v1/batches?pageSize=1");
-        Assert.True(await ErrorMappingInterceptorTests.TerminateServiceBackendsAsync(host.ConnectionString) > 0);
+        Assert.True(await RawDatabase.EndServiceBackendsAsync(host) > 0);
         using var channel = host.Channel(grpcKey);
         var ex = await Assert.ThrowsAsync<RpcException>(async () =>
             await new BatchService.BatchServiceClient(channel).ListBatchesAsync(new ListBatchesRequest { PageSize = 1 }));

@@ -1,6 +1,5 @@
 using GelDispense.Service.Tests.Infrastructure;
 using Microsoft.Data.Sqlite;
-using Npgsql;
 
 namespace GelDispense.Service.Tests.Errors;
 
@@ -17,7 +16,7 @@ public sealed class ErrorMappingInterceptorTests(ApiHosts hosts)
         var addition = Demo.Addition("cut-1", 0, (double)batch["steps"]![0]!["targetReadingG"]!);
 
         // As a database restart or a failover does: every backend serving the service is ended under its pool.
-        Assert.True(await TerminateServiceBackendsAsync(host.ConnectionString) > 0);
+        Assert.True(await RawDatabase.EndServiceBackendsAsync(host) > 0);
         var refused = await Demo.PostAsync(client, $"/v1/batches/{id}/additions", addition, 503);
         var recorded = await Demo.PostAsync(client, $"/v1/batches/{id}/additions", addition);
 
@@ -51,23 +50,5 @@ public sealed class ErrorMappingInterceptorTests(ApiHosts hosts)
         await Demo.PostAsync(client, $"/v1/batches/{id}/additions", addition);
         var stored = await Demo.GetAsync(client, $"/v1/batches/{id}");
         Assert.Equal(["locked-1"], stored["additions"]!.AsArray().Select(a => (string)a!["additionId"]!));
-    }
-
-    /// <summary>Ends every backend serving the database, as a restart or a failover does, under the service's pool.</summary>
-    internal static async Task<int> TerminateServiceBackendsAsync(string connectionString)
-    {
-        await using var admin = new NpgsqlConnection(new NpgsqlConnectionStringBuilder(connectionString) { Pooling = false }.ConnectionString);
-        await admin.OpenAsync();
-        // In the select list, so only the rows the WHERE keeps are ended (an AND in the WHERE has no order of evaluation).
-        await using var terminate = new NpgsqlCommand(
-            "SELECT pg_terminate_backend(pid) FROM pg_stat_activity WHERE datname = current_database() AND pid <> pg_backend_pid() AND backend_type = 'client backend'", admin);
-        await using var ended = await terminate.ExecuteReaderAsync();
-        var count = 0;
-        while (await ended.ReadAsync())
-        {
-            count += ended.GetBoolean(0) ? 1 : 0;
-        }
-
-        return count;
     }
 }
